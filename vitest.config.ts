@@ -5,7 +5,12 @@ import { defineConfig } from 'vitest/config';
 export default defineConfig({
   resolve: { tsconfigPaths: true },
   test: {
-    include: ['shared/**/*.spec.ts', 'server/**/*.spec.ts', 'tests/**/*.spec.ts', 'scripts/**/*.spec.ts'],
+    include: [
+      'shared/**/*.spec.ts',
+      'server/**/*.spec.ts',
+      'tests/**/*.spec.ts',
+      'scripts/**/*.spec.ts',
+    ],
     exclude: ['tests/e2e/**', 'node_modules/**', 'dist/**'],
     environment: 'node',
     testTimeout: 60_000,

@@ -1,0 +1,69 @@
+import express, { Router } from 'express';
+import helmet from 'helmet';
+import { existsSync } from 'node:fs';
+import { resolve } from 'node:path';
+
+/** A built front end and the path it is served under. */
+interface StaticApp {
+  readonly mount: string;
+  readonly dir: string;
+  /** Whether unknown paths fall back to index.html (client-side routing). */
+  readonly spa: boolean;
+}
+
+/** The front ends `npm start` builds into `dist/`, in the order they are mounted. */
+export function staticApps(distDir: string): StaticApp[] {
+  return [
+    { mount: '/console', dir: resolve(distDir, 'console/browser'), spa: true },
+    { mount: '/demo', dir: resolve(distDir, 'demo-portal/browser'), spa: true },
+    { mount: '/storybook', dir: resolve(distDir, 'storybook'), spa: false },
+  ];
+}
+
+/**
+ * Serves the built console, demo portal and Storybook. A front end that has not been built is
+ * answered with a problem that says which command builds it, rather than an empty page.
+ */
+export function staticAppRoutes(distDir: string): Router {
+  const router = Router();
+  router.get('/', (_req, res) => res.redirect(302, '/console/'));
+  for (const app of staticApps(distDir)) {
+    const sub = Router();
+    if (app.mount === '/storybook') {
+      // Storybook's static build boots from inline scripts.
+      sub.use(
+        helmet.contentSecurityPolicy({
+          directives: {
+            scriptSrc: ["'self'", "'unsafe-inline'", "'unsafe-eval'"],
+            upgradeInsecureRequests: null,
+          },
+        }),
+      );
+    }
+    sub.use((req, res, next) => {
+      if (existsSync(app.dir)) return next();
+      const build = app.mount === '/storybook' ? 'npm run storybook:build' : 'npm run build';
+      res
+        .status(404)
+        .type('application/problem+json')
+        .send(
+          JSON.stringify({
+            type: 'https://tropline.dev/problems/not-built',
+            title: 'This front end has not been built',
+            status: 404,
+            detail: `${app.mount}/ is served from ${app.dir}; run \`${build}\` first.`,
+          }),
+        );
+    });
+    sub.use(express.static(app.dir, { index: 'index.html', fallthrough: true, maxAge: '1h' }));
+    if (app.spa) {
+      sub.get('/{*rest}', (_req, res) => {
+        res.setHeader('Cache-Control', 'no-cache');
+        res.sendFile(resolve(app.dir, 'index.html'));
+      });
+    }
+    router.get(app.mount, (_req, res) => res.redirect(301, app.mount + '/'));
+    router.use(app.mount, sub);
+  }
+  return router;
+}
