@@ -1,0 +1,115 @@
+import { describe, expect, it } from 'vitest';
+import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
+import { compileChain } from '../model/chain-kernel';
+import { initialVector } from '../model/initial-vector';
+import { withParameter } from '../model/parameter-pointer';
+import { assessRegime } from './assess-regime';
+import { predictabilityHorizon } from './classify-regime';
+import { lyapunovSpectrum } from '../lyapunov/lyapunov-spectrum';
+import { benchmarkChain, BENCHMARK_INITIAL } from '../../tests/reference/analyses-benchmark-chain';
+
+const close = (a: number, b: number, tol: number) =>
+  Math.abs(a - b) <= tol * Math.max(1, Math.abs(a), Math.abs(b));
+
+describe('regimes of the Hastings & Powell (1991) chain', () => {
+  // Hastings & Powell (1991): chaotic dynamics at b1 = 3 with a small positive exponent.
+  it('finds b1 = 3 chaotic with a small positive exponent and its horizon', () => {
+    const r = assessRegime(benchmarkChain(3), BENCHMARK_INITIAL);
+    expect(r.regime).toBe('chaotic');
+    const { value, standardError } = r.lyapunovExponent;
+    expect(value).toBeGreaterThan(3 * standardError);
+    expect(value).toBeLessThan(0.1);
+    // ln(Δ/δ0)/λ with the defaults δ0 = 1 %, Δ = 100 % (the definition).
+    expect(close(r.predictabilityHorizon!, Math.log(100) / value, 1e-12)).toBe(true);
+  });
+
+  // Hastings & Powell (1991): a limit cycle at the low end of the b1 range (their Fig. 2 shows
+  // a single maximum there); a cycle's exponent is 0 (Benettin et al. 1980).
+  it('finds b1 = 2.2 a cycle with exponent zero within its error and a period', () => {
+    const r = assessRegime(benchmarkChain(2.2), BENCHMARK_INITIAL);
+    expect(r.regime).toBe('cycle');
+    expect(Math.abs(r.lyapunovExponent.value)).toBeLessThan(
+      Math.max(3 * r.lyapunovExponent.standardError, 1e-3),
+    );
+    expect(r.maximaPerPeriod).toBe(1);
+    expect(r.period).toBeGreaterThan(10);
+    expect(r.predictabilityNote).toBe('not limited by chaos');
+    expect(r.predictabilityHorizon).toBeUndefined();
+  });
+
+  // Period doubling in Hastings & Powell's diagram: two maxima per period at b1 = 2.5.
+  it('finds two maxima per period after the first period doubling (b1 = 2.5)', () => {
+    const r = assessRegime(benchmarkChain(2.5), BENCHMARK_INITIAL);
+    expect(r.regime).toBe('cycle');
+    expect(r.maximaPerPeriod).toBe(2);
+  });
+
+  // Benettin et al. (1980): at an attracting equilibrium the largest exponent is the largest
+  // real part of the Jacobian's eigenvalues; eigenvalues from ml-matrix (a reference library).
+  it('matches the largest eigenvalue real part at an attracting equilibrium (b1 = 2)', () => {
+    const model = benchmarkChain(2);
+    const r = assessRegime(model, BENCHMARK_INITIAL, { exponents: 3 });
+    expect(r.regime).toBe('equilibrium');
+    const kernel = compileChain(model);
+    const run = lyapunovSpectrum(kernel, initialVector(model, BENCHMARK_INITIAL), {
+      transient: 5000,
+      window: 100,
+    });
+    const jac = new Float64Array(9);
+    kernel.jacobian(0, run.state, jac);
+    const rows = [0, 1, 2].map((i) => Array.from(jac.subarray(3 * i, 3 * i + 3)));
+    const re = new EigenvalueDecomposition(new Matrix(rows)).realEigenvalues;
+    const top = Math.max(...re);
+    expect(top).toBeLessThan(0);
+    expect(Math.abs(r.lyapunovExponent.value - top)).toBeLessThan(
+      4 * r.lyapunovExponent.standardError + 1e-4,
+    );
+    // Sum of the spectrum = trace of J at the equilibrium (Liouville; the divergence identity).
+    const sum = r.spectrum.values.reduce((a, b) => a + b, 0);
+    expect(close(sum, jac[0]! + jac[4]! + jac[8]!, 1e-6)).toBe(true);
+  });
+
+  // General identity: for the full spectrum, Σλ_i equals the time-mean divergence of the vector
+  // field along the orbit (Liouville's formula; e.g. Ott, Chaos in Dynamical Systems, §4.4).
+  it('gives a full spectrum that sums to the mean divergence along the chaotic orbit', () => {
+    const r = assessRegime(benchmarkChain(3), BENCHMARK_INITIAL, { exponents: 3 });
+    const sum = r.spectrum.values.reduce((a, b) => a + b, 0);
+    expect(close(sum, r.meanDivergence, 1e-6)).toBe(true);
+    expect(r.meanDivergence).toBeLessThan(0); // dissipative
+    // One exponent of an autonomous flow with a non-equilibrium attractor is zero.
+    expect(Math.abs(r.spectrum.values[1]!)).toBeLessThan(4 * r.spectrum.standardErrors[1]! + 1e-3);
+  });
+
+  it.each([
+    [3, 'chaotic'],
+    [2.2, 'cycle'],
+    [2, 'equilibrium'],
+  ])('keeps b1 = %s %s under other tolerances and transients', (b1, regime) => {
+    const model = benchmarkChain(b1);
+    for (const options of [
+      { tolerance: 1e-7, transient: 3000 },
+      { tolerance: 1e-10, transient: 6000 },
+    ]) {
+      expect(assessRegime(model, BENCHMARK_INITIAL, options).regime).toBe(regime);
+    }
+  });
+
+  // A top predator whose mortality exceeds its largest possible gain a2/b2 = 0.05 cannot persist
+  // (common practice: the invasion condition of the Holling type II predator).
+  it('reports collapse of a predator that cannot persist', () => {
+    const model = withParameter(benchmarkChain(3), '/levels/2/mortality', 0.06);
+    const r = assessRegime(model, BENCHMARK_INITIAL, { transient: 2000, window: 1000 });
+    expect(r.regime).toBe('collapse');
+    expect(r.collapsedLevels).toEqual(['fish']);
+  });
+});
+
+describe('predictabilityHorizon', () => {
+  it('is ln(Δ/δ0)/λ for λ > 0 and undefined otherwise', () => {
+    expect(predictabilityHorizon(0.5, 0.01, 1)).toBeCloseTo(Math.log(100) / 0.5, 12);
+    expect(predictabilityHorizon(0)).toBeUndefined();
+    expect(predictabilityHorizon(-0.1)).toBeUndefined();
+    expect(predictabilityHorizon(Number.NaN)).toBeUndefined();
+    expect(() => predictabilityHorizon(1, 0, 1)).toThrow(RangeError);
+  });
+});

@@ -1,0 +1,91 @@
+import type { LyapunovResult } from '../lyapunov/lyapunov-spectrum';
+import { periodFromMaxima } from './period-from-maxima';
+
+/** The long-run behaviour of a chain after its transient. */
+export type Regime = 'equilibrium' | 'cycle' | 'chaotic' | 'collapse';
+
+/** Thresholds of the classification; every default is documented in shared/ANALYSES.md. */
+export interface RegimeRules {
+  /** Quasi-extinction threshold of each level, in its own unit. */
+  readonly extinction: ArrayLike<number>;
+  /** Standard errors an exponent must clear to count as non-zero; default 3. */
+  readonly zScore?: number;
+  /**
+   * Exponents within ±zeroBand (per model time unit) count as zero whatever their error;
+   * default 1e-3. Finite-window estimates of a cycle's exponent are O(1/window), not 0.
+   */
+  readonly zeroBand?: number;
+  /** Relative spread (max − min)/max over the window under which a level has settled; 1e-6. */
+  readonly settledSpread?: number;
+  /** Relative tolerance for two maxima of a cycle to be the same; default 1e-4. */
+  readonly periodTolerance?: number;
+}
+
+/** A regime with the evidence it rests on. */
+export interface RegimeVerdict {
+  readonly regime: Regime;
+  /** Period of the cycle in model time units (cycle only). */
+  readonly period?: number;
+  /** Maxima per period of the observed level (cycle only): 1, 2, 4 … after period doubling. */
+  readonly maximaPerPeriod?: number;
+  /** Indices of the levels below their quasi-extinction threshold (collapse only). */
+  readonly collapsedLevels?: number[];
+}
+
+/**
+ * Classifies a run by these rules, in order:
+ * 1. `collapse` if any level's minimum over the window is below its quasi-extinction threshold;
+ * 2. `equilibrium` if every level has settled (relative spread below `settledSpread`) or the
+ *    largest exponent is negative beyond max(zScore·SE, zeroBand);
+ * 3. `chaotic` if the largest exponent is positive beyond max(zScore·SE, zeroBand);
+ * 4. `cycle` otherwise (exponent zero within its error), with the period from the recurrence of
+ *    the observed level's successive maxima.
+ */
+export function classifyRegime(run: LyapunovResult, rules: RegimeRules): RegimeVerdict {
+  const n = run.windowMin.length;
+  if (rules.extinction.length !== n) {
+    throw new RangeError(`extinction needs one threshold per level (${n})`);
+  }
+  const collapsed: number[] = [];
+  for (let i = 0; i < n; i++) {
+    if (run.windowMin[i]! < rules.extinction[i]!) collapsed.push(i);
+  }
+  if (collapsed.length > 0) return { regime: 'collapse', collapsedLevels: collapsed };
+  const z = rules.zScore ?? 3;
+  const band = rules.zeroBand ?? 1e-3;
+  const spread = rules.settledSpread ?? 1e-6;
+  let settled = true;
+  for (let i = 0; i < n; i++) {
+    const top = Math.max(Math.abs(run.windowMax[i]!), Number.MIN_VALUE);
+    if ((run.windowMax[i]! - run.windowMin[i]!) / top > spread) settled = false;
+  }
+  const lambda = run.exponents[0]!;
+  const margin = Math.max(z * run.standardErrors[0]!, band);
+  if (settled || lambda < -margin) return { regime: 'equilibrium' };
+  if (lambda > margin) return { regime: 'chaotic' };
+  const p = periodFromMaxima(run.maximaTimes, run.maximaValues, rules.periodTolerance ?? 1e-4);
+  return p === undefined
+    ? { regime: 'cycle' }
+    : { regime: 'cycle', period: p.period, maximaPerPeriod: p.maximaPerPeriod };
+}
+
+/** Text given instead of a horizon when the regime does not limit predictability. */
+export const NOT_LIMITED_BY_CHAOS = 'not limited by chaos';
+
+/**
+ * Predictability horizon ln(Δ/δ0)/λ: the time for an initial relative uncertainty δ0 (default
+ * 1 %, e.g. survey precision) to grow past Δ (default 100 %) at the largest exponent λ
+ * (Lorenz's error-doubling argument, common practice). Undefined unless λ > 0: a non-chaotic
+ * regime is "not limited by chaos".
+ */
+export function predictabilityHorizon(
+  lambda: number,
+  initialUncertainty = 0.01,
+  tolerance = 1,
+): number | undefined {
+  if (!(initialUncertainty > 0 && tolerance > initialUncertainty)) {
+    throw new RangeError('need 0 < initial uncertainty < tolerance');
+  }
+  if (!(lambda > 0) || !Number.isFinite(lambda)) return undefined;
+  return Math.log(tolerance / initialUncertainty) / lambda;
+}
