@@ -111,3 +111,171 @@ export type {
   /** A projection request as a caller may write it. */
   ProjectionRequestInput,
 } from './contract/projection-request';
+export {
+  /** zod schema of the projection response. */
+  projectionResponseSchema,
+} from './contract/projection-response';
+export type {
+  /** The projection response `{ times, series, diagnostics, cautions }`. */
+  ProjectionResponse,
+} from './contract/projection-response';
+export {
+  /** zod schema of the equilibria request body `{ model }`. */
+  equilibriaRequestSchema,
+  /** Validates an equilibria request; pointers relative to the body. */
+  validateEquilibriaRequest,
+  /** zod schema of one eigenvalue `{ re, im }`. */
+  eigenvalueSchema,
+  /** zod schema of one equilibrium in the response. */
+  equilibriumSchema,
+  /** zod schema of the equilibria response. */
+  equilibriaResponseSchema,
+} from './contract/equilibria-contract';
+export type {
+  /** A validated equilibria request. */
+  EquilibriaRequest,
+  /** The equilibria response `{ equilibria: [...] }`. */
+  EquilibriaResponse,
+} from './contract/equilibria-contract';
+export {
+  /** Caution: projections are scenario tools, not forecasts. */
+  CAUTION_SCENARIO_NOT_FORECAST,
+  /** Caution: chaos caps the predictability horizon. */
+  CAUTION_PREDICTABILITY_HORIZON,
+  /** Caution: management decisions rest with qualified biologists under local law. */
+  CAUTION_MANAGEMENT_DECISIONS,
+  /** All projection cautions in display order. */
+  PROJECTION_CAUTIONS,
+} from './contract/cautions';
+
+// ── Derived views and presets ───────────────────────────────────────────────────────────────
+export {
+  /** Nondimensional groups aⱼ, bⱼ, dⱼ, time and state scales of a 2–4 level chain. */
+  nondimensionalGroups,
+  /** The paper's a1, b1, a2, b2, d1, d2 of a three-level chain. */
+  hastingsPowellGroups,
+  /** Maps Hastings–Powell groups back onto a dimensional three-level model. */
+  fromHastingsPowell,
+} from './model/hastings-powell';
+export type {
+  /** Nondimensional groups of a chain. */
+  NondimensionalGroups,
+  /** The six Hastings–Powell groups. */
+  HastingsPowellGroups,
+  /** Free dimensional scales (r, K, efficiencies) for the mapping back. */
+  DimensionalScales,
+} from './model/hastings-powell';
+export {
+  /** Hastings & Powell (1991) benchmark at b1 = 3, start (0.8, 0.2, 9). */
+  HASTINGS_POWELL_BENCHMARK,
+  /** Two-level Rosenzweig–MacArthur model (cycles). */
+  ROSENZWEIG_MACARTHUR,
+  /** Invented lake in real units mapping exactly onto the benchmark (chaotic). */
+  LAKE_DEMO,
+  /** Invented upland in real units (settles). */
+  UPLAND_DEMO,
+  /** Every preset. */
+  CHAIN_PRESETS,
+} from './model/presets';
+export type {
+  /** A ready-made model with its start and provenance. */
+  ChainPreset,
+} from './model/presets';
+
+// ── Integration and projection ──────────────────────────────────────────────────────────────
+export {
+  /** Bounded ODEX integration of any Float64Array kernel with dense output and callbacks. */
+  integrateChain,
+  /** Blow-up bound as a multiple of a component's scale. */
+  BLOW_UP_FACTOR,
+  /** Slack below zero (in absolute tolerances) before a level counts as negative. */
+  NEGATIVE_SLACK,
+} from './integrate/integrate-chain';
+export type {
+  /** Options of integrateChain. */
+  IntegrateOptions,
+  /** Result of integrateChain. */
+  IntegrateResult,
+  /** ODEX's dense interpolant of the last step. */
+  DenseInterpolant,
+} from './integrate/integrate-chain';
+export {
+  /** Typed integration failure with a cause code, time and level. */
+  IntegrationError,
+} from './integrate/integration-error';
+export type {
+  /** Cause codes of IntegrationError. */
+  IntegrationFailure,
+  /** Integrator counters. */
+  IntegrationDiagnostics,
+} from './integrate/integration-error';
+export {
+  /** Adapts a Float64Array kernel to odex's number[] callback, reusing buffers. */
+  odexDerivative,
+} from './integrate/odex-derivative';
+export type {
+  /** Any kernel with a dimension and an allocation-free RHS. */
+  OdeKernel,
+  /** An odex callback with its evaluation counter. */
+  OdexDerivative,
+} from './integrate/odex-derivative';
+export {
+  /** Validates and runs a projection request (the API's /projections). */
+  project,
+  /** Runs an already validated projection request. */
+  projectValidated,
+  /** Evenly spaced sample times 0..horizon. */
+  sampleTimes,
+} from './integrate/project';
+export type {
+  /** Budgets for one projection. */
+  ProjectOptions,
+} from './integrate/project';
+
+// ── Equilibria and stability ────────────────────────────────────────────────────────────────
+export {
+  /** Every equilibrium of a chain with eigenvalues and stability. */
+  findEquilibria,
+} from './equilibria/find-equilibria';
+export type {
+  /** One equilibrium with its stability. */
+  Equilibrium,
+} from './equilibria/find-equilibria';
+export {
+  /** Whether a model's equilibria have a closed form. */
+  hasClosedForm,
+  /** Closed-form equilibria with levels 0..top present. */
+  closedFormEquilibria,
+  /** Real roots of a quadratic without cancellation. */
+  quadraticRoots,
+} from './equilibria/closed-form';
+export {
+  /** Damped Newton on a kernel's f(y) = 0. */
+  newtonRoot,
+  /** Newton fallback from many deterministic starts. */
+  newtonEquilibria,
+} from './equilibria/newton-equilibria';
+export type {
+  /** Options of the Newton fallback. */
+  NewtonOptions,
+} from './equilibria/newton-equilibria';
+export {
+  /** Eigenvalues of a row-major matrix via ml-matrix. */
+  eigenvalues,
+} from './stability/eigenvalues';
+export type {
+  /** One eigenvalue `{ re, im }`. */
+  Eigenvalue,
+} from './stability/eigenvalues';
+export {
+  /** Stability verdict and plain-language class from eigenvalues. */
+  classifyEquilibrium,
+} from './stability/classify-equilibrium';
+export type {
+  /** Plain-language equilibrium class. */
+  EquilibriumClass,
+  /** Stability verdict. */
+  StabilityVerdict,
+} from './stability/classify-equilibrium';
+
+// ── Analyses (appended by the analyses work; keep below this line) ──────────────────────────

@@ -1,0 +1,133 @@
+import { compileChain, levelScales } from '../model/chain-kernel';
+import type { ChainModel } from '../model/chain-model';
+import { stateRecord } from '../model/initial-vector';
+import { classifyEquilibrium, type EquilibriumClass } from '../stability/classify-equilibrium';
+import { eigenvalues, type Eigenvalue } from '../stability/eigenvalues';
+import { closedFormEquilibria, hasClosedForm } from './closed-form';
+import { newtonEquilibria, newtonRoot } from './newton-equilibria';
+
+/** One equilibrium of a chain with its stability. */
+export interface Equilibrium {
+  /** Value of every level, by id. */
+  readonly state: Record<string, number>;
+  /** Whether no level is negative (an ecologically possible state). */
+  readonly feasible: boolean;
+  /** Jacobian eigenvalues, real part descending. */
+  readonly eigenvalues: Eigenvalue[];
+  /** Whether it attracts nearby states (every eigenvalue has a negative real part). */
+  readonly stable: boolean;
+  /** Plain-language class (stable node, stable spiral, saddle, …). */
+  readonly classification: EquilibriumClass;
+  /** One sentence for non-specialists. */
+  readonly description: string;
+  /** Ids of the levels present (non-zero), bottom up. */
+  readonly present: string[];
+  /** Which kind: everything extinct, producer alone, a partial chain or the full chain. */
+  readonly kind: 'extinction' | 'producer-only' | 'partial-chain' | 'interior';
+  /** How it was found. */
+  readonly method: 'closed-form' | 'newton';
+}
+
+/** Relative distance under which two roots are the same equilibrium. */
+const SAME_ROOT = 1e-7;
+
+function isZero(v: number, scale: number): boolean {
+  return Math.abs(v) <= 1e-12 * scale;
+}
+
+/**
+ * Every equilibrium of the chain: extinction, producer alone, each partial chain and the
+ * interior, feasible or not. Closed form where the chain structure gives one (type II responses,
+ * effort harvest only, up to three levels present; see closedFormEquilibria), otherwise damped
+ * Newton from many deterministic starts, de-duplicated. Each comes with its Jacobian eigenvalues
+ * (ml-matrix) and a stability verdict. Sorted: feasible first, then by number of levels present.
+ */
+export function findEquilibria(model: ChainModel): Equilibrium[] {
+  const kernel = compileChain(model);
+  const n = kernel.dimension;
+  const scales = levelScales(model);
+  const found: { y: Float64Array; method: Equilibrium['method'] }[] = [];
+  const add = (y: Float64Array, method: Equilibrium['method']): void => {
+    if (!y.every(Number.isFinite)) return;
+    for (let i = 0; i < n; i++) if (isZero(y[i]!, scales[i]!)) y[i] = 0;
+    const dup = found.some((f) =>
+      f.y.every(
+        (v, i) =>
+          Math.abs(v - y[i]!) <= SAME_ROOT * Math.max(scales[i]!, Math.abs(v), Math.abs(y[i]!)),
+      ),
+    );
+    if (!dup) found.push({ y, method });
+  };
+  const closed = hasClosedForm(model);
+  if (closed) {
+    for (let top = -1; top < n; top++) {
+      const roots = closedFormEquilibria(model, top);
+      if (roots) for (const y of roots) add(polish(kernel, y, scales), 'closed-form');
+    }
+  }
+  const stocked = (model.stocking ?? []).some((s) => s.amount > 0);
+  if (!closed || n === 4) {
+    for (const y of newtonEquilibria(kernel, { scales, supports: !stocked })) {
+      if (closed && y.some((v, i) => isZero(v, scales[i]!))) continue; // closed form has these
+      if (!stocked && !chainShaped(y, scales)) continue;
+      add(y, 'newton');
+    }
+  }
+  const jac = new Float64Array(n * n);
+  const out = found.map(({ y, method }): Equilibrium => {
+    kernel.jacobian(0, y, jac);
+    const eig = eigenvalues(jac, n);
+    const verdict = classifyEquilibrium(eig);
+    const presentIdx = [...y].map((v, i) => (v !== 0 ? i : -1)).filter((i) => i >= 0);
+    const count = presentIdx.length;
+    return {
+      state: stateRecord(model, y),
+      feasible: y.every((v) => v >= 0),
+      eigenvalues: eig,
+      stable: verdict.stable,
+      classification: verdict.classification,
+      description: verdict.description,
+      present: presentIdx.map((i) => kernel.ids[i]!),
+      kind:
+        count === 0
+          ? 'extinction'
+          : count === n
+            ? 'interior'
+            : count === 1 && y[0] !== 0
+              ? 'producer-only'
+              : 'partial-chain',
+      method,
+    };
+  });
+  return out.sort(
+    (p, q) => Number(q.feasible) - Number(p.feasible) || p.present.length - q.present.length,
+  );
+}
+
+/**
+ * Whether the levels present are 0..p for some p (a producer with its consumers stacked on it).
+ * Without stocking, every other root needs a consumer living without food, which only happens
+ * at negative densities; the chain's equilibria are defined as the partial chains.
+ */
+function chainShaped(y: Float64Array, scales: Float64Array): boolean {
+  let gap = false;
+  for (let i = 0; i < y.length; i++) {
+    const zero = isZero(y[i]!, scales[i]!);
+    if (!zero && gap) return false;
+    gap ||= zero;
+  }
+  return true;
+}
+
+/** One or two Newton steps on a closed-form root to remove rounding; keeps it if Newton fails. */
+function polish(
+  kernel: ReturnType<typeof compileChain>,
+  y: Float64Array,
+  scales: Float64Array,
+): Float64Array {
+  const copy = Float64Array.from(y);
+  return newtonRoot(kernel, copy, scales) &&
+    copy.every((v, i) => Math.abs(v - y[i]!) <= 1e-6 * Math.max(scales[i]!, Math.abs(v)))
+    ? copy
+    : y;
+}
