@@ -4,10 +4,12 @@ import type { Knex } from 'knex';
 import { pinoHttp } from 'pino-http';
 import type { Config } from './config';
 import { openDatabase, prepareDatabase, type PrepareOutcome } from './db/database';
+import { keyedApi } from './auth/keyed-api';
 import { docsRoutes } from './docs/docs-routes';
 import { healthRoutes } from './health/health-routes';
 import { notFound, problemHandler } from './http/problem';
 import { staticAppRoutes } from './http/static-apps';
+import { issueDemoKeys, readDemoKeys, type DemoKeys } from './keys/demo-keys';
 
 /** What the server shares with its routes, kept on `app.locals.tropline`. */
 export interface AppContext {
@@ -17,6 +19,16 @@ export interface AppContext {
   readonly ready: Promise<PrepareOutcome>;
   /** Releases the database and any worker threads. */
   close(): Promise<void>;
+  /** The clock every expiry, window and period is read from (tests move it). */
+  readonly now: () => number;
+  /** The demo tenant's keys in plaintext, once `ready` (development and test only). */
+  demoKeys?: DemoKeys;
+}
+
+/** Options for tests. */
+export interface AppOptions {
+  /** Clock in epoch milliseconds; defaults to `Date.now`. */
+  readonly now?: () => number;
 }
 
 /** The app plus its context. */
@@ -26,11 +38,29 @@ export type TroplineApp = Express & { locals: { tropline: AppContext } };
  * Builds the Express application. It never listens (main.ts does), so tests can drive it with
  * supertest. The database is opened and migrated here; requests wait until it is ready.
  */
-export function createApp(config: Config): TroplineApp {
+export function createApp(config: Config, options: AppOptions = {}): TroplineApp {
+  const now = options.now ?? Date.now;
   const db = openDatabase(config);
-  const ready = prepareDatabase(db, config);
+  const keyed = keyedApi(db, now);
+  const ready = prepareDatabase(db, config).then(async (outcome) => {
+    if (config.nodeEnv !== 'production') {
+      context.demoKeys = outcome.seeded
+        ? await issueDemoKeys(db, config, now)
+        : readDemoKeys(config);
+    }
+    return outcome;
+  });
   ready.catch(() => undefined); // reported by whoever awaits it (main.ts or the first request)
-  const context: AppContext = { config, db, ready, close: () => db.destroy() };
+  const context: AppContext = {
+    config,
+    db,
+    ready,
+    now,
+    close: async () => {
+      await keyed.close();
+      await db.destroy();
+    },
+  };
 
   const app = express() as TroplineApp;
   app.locals.tropline = context;
@@ -65,11 +95,20 @@ export function createApp(config: Config): TroplineApp {
   const api = express.Router();
   api.use(express.json({ limit: '256kb', strict: true }));
   api.use(healthRoutes(db));
+  api.use(keyed.router);
   api.use(notFound);
   app.use('/api/v1', api);
   app.use('/api', docsRoutes());
   app.use('/api', notFound);
-  if (config.serveApps) app.use(staticAppRoutes(config.distDir));
+  if (config.serveApps) {
+    const demoKeys = () => (context as { demoKeys?: { browserKey: string } }).demoKeys;
+    app.use(
+      staticAppRoutes(config.distDir, () => {
+        const keys = demoKeys();
+        return keys ? { apiUrl: '/api/v1', apiKey: keys.browserKey } : undefined;
+      }),
+    );
+  }
   app.use(notFound);
   app.use(problemHandler);
   return app;

@@ -1,0 +1,38 @@
+import { Router } from 'express';
+import type { Knex } from 'knex';
+import { KeysService } from '../keys/keys-service';
+import { keysRoutes } from '../keys/keys-routes';
+import { projectionsRoutes } from '../projections/projections-routes';
+import { ResultCache } from '../projections/result-cache';
+import { QuotasService } from '../quotas/quotas-service';
+import { usageRoutes } from '../quotas/usage-routes';
+import { keyCorsPreflight } from './key-cors';
+import { keyGuard } from './require-key';
+
+/** The keyed part of `/api/v1` and what it holds on to. */
+export interface KeyedApi {
+  readonly router: Router;
+  readonly keys: KeysService;
+  readonly quotas: QuotasService;
+  /** Stops background work (job runner, pool). */
+  close(): Promise<void>;
+}
+
+/**
+ * Everything an API key reaches: CORS preflights for browser keys, keys, usage and the compute
+ * routes. Built once per app over its database and clock.
+ */
+export function keyedApi(db: Knex, now: () => number): KeyedApi {
+  const keys = new KeysService(db, now);
+  const quotas = new QuotasService(db, now);
+  const requireKey = keyGuard(keys, now);
+  const router = Router();
+  router.use(keyCorsPreflight(keys, now));
+  router.use(keysRoutes(keys, quotas, requireKey));
+  router.use(usageRoutes(quotas, requireKey));
+  // 64 MB of serialised answers for 10 minutes: the demo portal's repeated views and the
+  // bench's repeats hit it; engine answers are deterministic so a hit is exact.
+  const cache = new ResultCache({ maxBytes: 64 * 2 ** 20, ttlMs: 10 * 60_000, now });
+  router.use(projectionsRoutes(quotas, cache, requireKey));
+  return { router, keys, quotas, close: async () => undefined };
+}

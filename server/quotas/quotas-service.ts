@@ -1,0 +1,181 @@
+import type { RequestHandler, Response } from 'express';
+import type { Knex } from 'knex';
+import { principalOf, type KeyPrincipal } from '../auth/key-principal';
+import { AuditRepository } from '../audit/audit-repository';
+import { ProblemError, validationProblem, type FieldError } from '../http/problem';
+import {
+  DEFAULT_PLAN,
+  QuotasRepository,
+  type AdmissionRequest,
+  type QuotaPlan,
+} from './quotas-repository';
+import { rateLimitHeaders, type LimitState } from './rate-limit-headers';
+
+/** `YYYY-MM` of a UTC instant. */
+export function periodOf(ms: number): string {
+  return new Date(ms).toISOString().slice(0, 7);
+}
+
+/** Start of the next calendar month (UTC), epoch ms. */
+export function nextPeriodStart(ms: number): number {
+  const d = new Date(ms);
+  return Date.UTC(d.getUTCFullYear(), d.getUTCMonth() + 1, 1);
+}
+
+function monthSeconds(ms: number): number {
+  const d = new Date(ms);
+  const start = Date.UTC(d.getUTCFullYear(), d.getUTCMonth(), 1);
+  return Math.round((nextPeriodStart(ms) - start) / 1000);
+}
+
+/** A ticket for an admitted request: keep it to refund the units if the work fails. */
+export type Admission = AdmissionRequest;
+
+/** Metering: per-key request rate and per-tenant monthly compute units. */
+export class QuotasService {
+  readonly repository: QuotasRepository;
+  private lastPruned = 0;
+
+  constructor(
+    db: Knex,
+    private readonly now: () => number = Date.now,
+  ) {
+    this.repository = new QuotasRepository(db);
+  }
+
+  /**
+   * Admits a request of `cost` units or throws 429. Either way the response gets `RateLimit`
+   * and `RateLimit-Policy`; a refusal also gets `Retry-After` and a body naming the limit.
+   */
+  async admit(
+    principal: KeyPrincipal,
+    endpoint: string,
+    cost: number,
+    res: Response,
+    cached = false,
+  ): Promise<Admission> {
+    const nowMs = this.now();
+    const windowStart = Math.floor(nowMs / 60_000) * 60;
+    const ticket: Admission = {
+      tenantId: principal.tenantId,
+      keyId: principal.keyId,
+      endpoint,
+      cost,
+      cached,
+      period: periodOf(nowMs),
+      windowStart,
+      monthlyLimit: principal.monthlyUnits,
+      rateLimit: principal.perMinute,
+      at: new Date(nowMs).toISOString(),
+    };
+    this.prune(windowStart);
+    const outcome = await this.repository.admit(ticket);
+    const minuteReset = windowStart + 60 - Math.floor(nowMs / 1000);
+    const monthReset = Math.ceil((nextPeriodStart(nowMs) - nowMs) / 1000);
+    const states: LimitState[] = [
+      {
+        name: 'per-minute',
+        quota: principal.perMinute,
+        window: 60,
+        remaining: principal.perMinute - outcome.requests,
+        reset: minuteReset,
+      },
+      {
+        name: 'monthly-units',
+        quota: principal.monthlyUnits,
+        window: monthSeconds(nowMs),
+        remaining: principal.monthlyUnits - outcome.used,
+        reset: monthReset,
+      },
+    ];
+    const headers = rateLimitHeaders(states);
+    res.set(headers);
+    if (outcome.refused) {
+      const perMinute = outcome.refused === 'per-minute';
+      const retryAfter = perMinute ? minuteReset : monthReset;
+      const resetsAt = new Date(
+        perMinute ? (windowStart + 60) * 1000 : nextPeriodStart(nowMs),
+      ).toISOString();
+      throw new ProblemError(
+        429,
+        perMinute ? 'rate-limited' : 'quota-exceeded',
+        perMinute ? 'Too many requests' : 'Monthly compute units used up',
+        perMinute
+          ? `This key may make ${principal.perMinute} requests per minute; the window resets ` +
+              `at ${resetsAt}.`
+          : `This request costs ${cost} units and ${Math.max(0, principal.monthlyUnits - outcome.used)}` +
+              ` of the tenant's ${principal.monthlyUnits} monthly units are left; the quota resets ` +
+              `at ${resetsAt}.`,
+        { limit: outcome.refused, cost, resetsAt, retryAfter },
+        { ...headers, 'Retry-After': String(retryAfter) },
+      );
+    }
+    return ticket;
+  }
+
+  /**
+   * Middleware for keyed routes that compute nothing: counts the request against the key's
+   * rate (0 units) so the answer carries the rate-limit fields like every keyed response.
+   */
+  free(endpoint: string): RequestHandler {
+    return async (req, res, next) => {
+      await this.admit(principalOf(req), endpoint, 0, res);
+      next();
+    };
+  }
+
+  /** Returns an admitted request's units (the computation failed through no fault of quota). */
+  async refund(ticket: Admission): Promise<void> {
+    await this.repository.refund({ ...ticket, at: new Date(this.now()).toISOString() });
+  }
+
+  /** Sets a tenant's plan (operator); fields left out keep their current value. */
+  async setPlan(tenantId: string, change: Partial<QuotaPlan>, actor: string): Promise<QuotaPlan> {
+    const errors: FieldError[] = [];
+    for (const [field, value] of Object.entries(change)) {
+      if (value === undefined) continue;
+      if (!Number.isSafeInteger(value) || value < 0) {
+        errors.push({ pointer: `/${field}`, message: `${field} must be a whole number ≥ 0` });
+      }
+    }
+    if (errors.length) throw validationProblem(errors);
+    const current = (await this.repository.getPlan(tenantId)) ?? DEFAULT_PLAN;
+    const plan: QuotaPlan = {
+      monthlyUnits: change.monthlyUnits ?? current.monthlyUnits,
+      perMinute: change.perMinute ?? current.perMinute,
+      browserPerMinute: change.browserPerMinute ?? current.browserPerMinute,
+    };
+    const at = new Date(this.now()).toISOString();
+    await this.repository.setPlan(tenantId, plan, at);
+    await new AuditRepository(this.repository.db).record({
+      tenantId,
+      actor,
+      action: 'quota.set',
+      detail: { ...plan },
+      at,
+    });
+    return plan;
+  }
+
+  /** `GET /usage`: the tenant's current month. */
+  async usage(principal: KeyPrincipal) {
+    const nowMs = this.now();
+    const period = periodOf(nowMs);
+    const used = await this.repository.used({ tenantId: principal.tenantId, period });
+    return {
+      period,
+      used,
+      limit: principal.monthlyUnits,
+      resetsAt: new Date(nextPeriodStart(nowMs)).toISOString(),
+      perMinute: principal.perMinute,
+    };
+  }
+
+  private prune(windowStart: number): void {
+    if (windowStart - this.lastPruned < 60) return;
+    this.lastPruned = windowStart;
+    // Old windows limit nothing; dropping them is housekeeping, so a failure only waits for
+    // the next minute.
+    this.repository.pruneWindows(windowStart - 120).catch(() => undefined);
+  }
+}
