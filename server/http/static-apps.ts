@@ -24,7 +24,10 @@ export function staticApps(distDir: string): StaticApp[] {
  * Serves the built console, demo portal and Storybook. A front end that has not been built is
  * answered with a problem that says which command builds it, rather than an empty page.
  */
-export function staticAppRoutes(distDir: string): Router {
+export function staticAppRoutes(
+  distDir: string,
+  demoRuntimeConfig: () => { apiUrl: string; apiKey: string } | undefined,
+): Router {
   const router = Router();
   router.get('/', (_req, res) => res.redirect(302, '/console/'));
   for (const app of staticApps(distDir)) {
@@ -56,13 +59,27 @@ export function staticAppRoutes(distDir: string): Router {
         );
     });
     sub.use(express.static(app.dir, { index: 'index.html', fallthrough: true, maxAge: '1h' }));
+    if (app.mount === '/demo') {
+      // A deployed portal ships its own runtime-config.json (served just above); in development
+      // the server writes one with the seeded demo browser key.
+      sub.get('/runtime-config.json', (_req, res, next) => {
+        const runtime = demoRuntimeConfig();
+        if (!runtime) return next();
+        res.setHeader('Cache-Control', 'no-store');
+        res.json(runtime);
+      });
+    }
     if (app.spa) {
-      sub.get('/{*rest}', (_req, res) => {
+      // Client-side routes have no file extension; a missing asset stays a 404.
+      sub.get('/{*rest}', (req, res, next) => {
+        if (/\.[a-z0-9]+$/i.test(req.path)) return next();
         res.setHeader('Cache-Control', 'no-cache');
         res.sendFile(resolve(app.dir, 'index.html'));
       });
     }
-    router.get(app.mount, (_req, res) => res.redirect(301, app.mount + '/'));
+    router.get(app.mount, (req, res, next) =>
+      req.originalUrl.split('?')[0] === app.mount ? res.redirect(301, app.mount + '/') : next(),
+    );
     router.use(app.mount, sub);
   }
   return router;

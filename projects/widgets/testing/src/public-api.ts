@@ -1,0 +1,10 @@
+/*
+ * @tropline/widgets/testing: test doubles and harnesses for host apps' own tests.
+ */
+export {
+  FakeTroplineClient,
+  provideFakeTroplineClient,
+  provideTroplineTesting,
+  type FakeTroplineClientOptions,
+} from './fake-tropline-client';
+export { TrajectoryChartHarness } from './trajectory-chart-harness';
