@@ -1,0 +1,134 @@
+import { mkdirSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { type Browser, chromium, type Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { CHROMIUM_ARGS, ensureChromium } from './chromium';
+import { type ServedApp, serveForBrowser } from './served-app';
+
+const ARTIFACTS = resolve(import.meta.dirname, '../artifacts');
+
+/** Every URL the page asked for, and those that tried to leave the machine. */
+interface RequestLog {
+  all: string[];
+  outside: string[];
+}
+
+function isLocal(url: string): boolean {
+  const { protocol, hostname } = new URL(url);
+  if (protocol === 'data:' || protocol === 'blob:') return true;
+  return hostname === 'localhost' || hostname === '127.0.0.1' || hostname === '[::1]';
+}
+
+async function openPage(
+  browser: Browser,
+  url: string,
+  beforeGoto: (page: Page) => void = () => undefined,
+): Promise<{ page: Page; log: RequestLog }> {
+  const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+  const log: RequestLog = { all: [], outside: [] };
+  // Refuse, and record, anything that would leave localhost.
+  await context.route('**/*', async (route) => {
+    const url = route.request().url();
+    log.all.push(url);
+    if (isLocal(url)) await route.continue();
+    else {
+      log.outside.push(url);
+      await route.abort('blockedbyclient');
+    }
+  });
+  const page = await context.newPage();
+  beforeGoto(page);
+  await page.goto(url, { waitUntil: 'networkidle' });
+  return { page, log };
+}
+
+interface ProjectionAnswer {
+  status: number;
+  body: { series: Record<string, number[]> };
+}
+
+describe('demo portal in Chromium', () => {
+  let served: ServedApp;
+  let browser: Browser;
+
+  beforeAll(async () => {
+    mkdirSync(ARTIFACTS, { recursive: true });
+    served = await serveForBrowser();
+    browser = await chromium.launch({ executablePath: ensureChromium(), args: CHROMIUM_ARGS });
+  }, 120_000);
+
+  afterAll(async () => {
+    await browser?.close();
+    await served?.stop();
+  });
+
+  it('draws the trajectory from the API’s numbers, in shipped fonts, all from localhost', async () => {
+    let apiAnswer!: Promise<ProjectionAnswer>;
+    const { page, log } = await openPage(browser, served.base + '/demo/', (p) => {
+      apiAnswer = p
+        .waitForResponse(
+          (res) => res.url().endsWith('/api/v1/projections') && res.request().method() === 'POST',
+          { timeout: 30_000 },
+        )
+        .then(async (res) => ({ status: res.status(), body: await res.json() }));
+    });
+    const answer = await apiAnswer;
+    expect(answer.status).toBe(200);
+    expect(Object.keys(answer.body.series)).toEqual(['algae', 'daphnia', 'perch']);
+
+    // The chart canvas exists and has been painted.
+    const chart = page.locator('tropline-trajectory-chart canvas').first();
+    await chart.waitFor({ state: 'visible', timeout: 30_000 });
+    const painted = await chart.evaluate((canvas: HTMLCanvasElement) => {
+      const ctx = canvas.getContext('2d')!;
+      const { data } = ctx.getImageData(0, 0, canvas.width, canvas.height);
+      let opaque = 0;
+      for (let i = 3; i < data.length; i += 4) if (data[i]! > 0) opaque++;
+      return opaque / (canvas.width * canvas.height);
+    });
+    expect(painted).toBeGreaterThan(0.01);
+
+    // The summary beside the chart quotes the API's last perch value.
+    const perchEnd = answer.body.series['perch']!.at(-1)!;
+    const expected = new Intl.NumberFormat('en', { maximumSignificantDigits: 3 }).format(perchEnd);
+    await expect
+      .poll(() => page.locator('tropline-trajectory-chart figcaption').textContent())
+      .toContain(`ends at ${expected}`);
+
+    // Cautions are on screen.
+    await expect
+      .poll(() => page.locator('tropline-caution-notice').textContent())
+      .toContain('not forecasts');
+
+    // Fonts: Roboto and the icon font are loaded, from the portal's own media folder.
+    const fonts = await page.evaluate(async () => {
+      await document.fonts.ready;
+      return {
+        roboto: document.fonts.check('400 16px Roboto'),
+        icons: document.fonts.check('24px "Material Symbols Outlined"'),
+        body: getComputedStyle(document.body).fontFamily,
+      };
+    });
+    expect(fonts.roboto).toBe(true);
+    expect(fonts.icons).toBe(true);
+    expect(fonts.body).toMatch(/^Roboto/);
+    const fontFiles = log.all.filter((u) => /\.woff2?$/.test(u));
+    expect(fontFiles.length).toBeGreaterThan(0);
+    expect(fontFiles.every((u) => u.startsWith(served.base + '/demo/media/'))).toBe(true);
+
+    expect(log.outside).toEqual([]);
+    await page.screenshot({ path: resolve(ARTIFACTS, 'demo-portal.png'), fullPage: true });
+  }, 120_000);
+
+  it('serves the console in Tropline’s theme, reporting the API as up', async () => {
+    const { page, log } = await openPage(browser, served.base + '/console/');
+    await expect.poll(() => page.locator('tc-status-page').textContent()).toContain('is answering');
+    const toolbar = await page
+      .locator('mat-toolbar')
+      .evaluate((el) => getComputedStyle(el).backgroundColor);
+    // Tropline primary (#1b6a5e in the generated palette's tone 40).
+    expect(toolbar).toBe('rgb(27, 106, 94)');
+    expect(log.outside).toEqual([]);
+    await page.screenshot({ path: resolve(ARTIFACTS, 'console.png'), fullPage: true });
+  }, 60_000);
+});
