@@ -1,0 +1,141 @@
+import { describe, expect, it } from 'vitest';
+import { Solver } from 'odex';
+import { compileChain } from '../model/chain-kernel';
+import { withParameter } from '../model/parameter-pointer';
+import { validateSweepRequest, type SweepRequest } from '../analyses-contract/sweep-contract';
+import { AnalysisBoundsError } from '../analyses-contract/analysis-limits';
+import { assertSweepBounds, runSweepRange, sweepValues } from './run-sweep';
+import { benchmarkChain, BENCHMARK_INITIAL } from '../../tests/reference/analyses-benchmark-chain';
+
+const body = (over: object = {}) => ({
+  model: benchmarkChain(3),
+  initial: BENCHMARK_INITIAL,
+  parameter: '/levels/1/handlingTime',
+  from: 2.2 / 5,
+  to: 3 / 5,
+  steps: 3,
+  observe: 'fish',
+  transient: 3000,
+  window: 2000,
+  ...over,
+});
+const request = (over: object = {}): SweepRequest => {
+  const v = validateSweepRequest(body(over));
+  if (!v.ok) throw new Error(JSON.stringify(v.errors));
+  return v.value;
+};
+const distinct = (xs: number[], tol: number) =>
+  xs.reduce<number[]>(
+    (acc, x) => (acc.some((a) => Math.abs(a - x) <= tol) ? acc : [...acc, x]),
+    [],
+  );
+
+describe('sweeps along b1 of the Hastings & Powell (1991) chain', () => {
+  // Their bifurcation diagram (maxima of the top level against b1): one maximum on the cycle
+  // near b1 = 2.2, two after the first period doubling (2.5), irregular bands near b1 = 3.
+  it('reproduces one maximum, a doubled cycle and an irregular band', () => {
+    const { points } = runSweepRange(request({ from: 2.2 / 5, to: 3 / 5, steps: 3 }), 0, 3);
+    const [p22, p26, p30] = points as [(typeof points)[0], (typeof points)[0], (typeof points)[0]];
+    expect(p22.value).toBeCloseTo(0.44, 14);
+    expect(distinct(p22.maxima, 1e-5)).toHaveLength(1);
+    expect(p22.regime).toBe('cycle');
+    expect(distinct(p30.maxima, 1e-3).length).toBeGreaterThan(10);
+    expect(p30.regime).toBe('chaotic');
+    expect(p26.maxima.length).toBeGreaterThan(10);
+  });
+
+  it('finds two maxima per period at b1 = 2.5', () => {
+    const { points } = runSweepRange(request({ from: 0.5, to: 0.5, steps: 2 }), 0, 1);
+    expect(distinct(points[0]!.maxima, 1e-5)).toHaveLength(2);
+    expect(points[0]!.regime).toBe('cycle');
+  });
+
+  // odex 2.0.4 at rtol 1e-12 with its own dense output as the independent reference: on the
+  // doubled cycle (b1 = 2.5) every maximum located by DOP853's interpolant at rtol 1e-8 must
+  // match a maximum of odex's trajectory to the tolerance.
+  it('locates the maxima as the odex path does, to the tolerance', () => {
+    const req = request({ from: 0.5, to: 0.5, steps: 2 });
+    const ours = distinct(runSweepRange(req, 0, 1).points[0]!.maxima, 1e-6);
+    const kernel = compileChain(withParameter(req.model, req.parameter, 0.5));
+    const y = new Float64Array(3);
+    const d = new Float64Array(3);
+    const f = (t: number, v: number[]) => {
+      y.set(v);
+      kernel.rhs(t, y, d);
+      return Array.from(d);
+    };
+    const solver = new Solver(3);
+    solver.relativeTolerance = 1e-12;
+    solver.absoluteTolerance = 1e-12;
+    const start = solver.solve(f, 0, [0.76, 0.16, 9.9], 3000).y;
+    solver.denseOutput = true;
+    const refMaxima: number[] = [];
+    let prev: number[] | undefined;
+    solver.solve(f, 0, start, 1000, (_n, xold, x, yy, dense) => {
+      if (prev && dense && f(xold, prev)[2]! > 0 && f(x, yy)[2]! <= 0) {
+        let a = xold;
+        let b = x;
+        const g = (Math.sqrt(5) - 1) / 2;
+        for (let i = 0; i < 80; i++) {
+          const c = b - g * (b - a);
+          const e = a + g * (b - a);
+          if (dense(2, c) > dense(2, e)) b = e;
+          else a = c;
+        }
+        refMaxima.push(dense(2, 0.5 * (a + b)));
+      }
+      prev = yy.slice();
+    });
+    const ref = distinct(refMaxima, 1e-6);
+    expect(ref).toHaveLength(ours.length);
+    for (const m of ours) {
+      expect(ref.some((r) => Math.abs(r - m) <= 1e-6 * Math.abs(m))).toBe(true);
+    }
+  });
+
+  it('gives the same points however the range is split (what keeps the pool deterministic)', () => {
+    const req = request({ steps: 4, transient: 500, window: 500 });
+    const whole = runSweepRange(req, 0, 4).points;
+    const parts = [...runSweepRange(req, 0, 1).points, ...runSweepRange(req, 1, 4).points];
+    expect(parts).toEqual(whole);
+  });
+
+  it('continues the state from value to value when asked, from the first value only', () => {
+    const req = request({ steps: 3, transient: 500, window: 500, continuation: true });
+    const cont = runSweepRange(req, 0, 3).points;
+    const fresh = runSweepRange({ ...req, continuation: false }, 0, 1).points;
+    expect(cont[0]).toEqual(fresh[0]);
+    expect(cont).toHaveLength(3);
+    expect(() => runSweepRange(req, 1, 3)).toThrow(RangeError);
+  });
+
+  it('spaces values evenly and ends exactly on `to`', () => {
+    expect(sweepValues(2, 6.2, 100)[99]).toBe(6.2);
+    expect(sweepValues(0, 1, 5)).toEqual([0, 0.25, 0.5, 0.75, 1]);
+  });
+});
+
+describe('sweep requests', () => {
+  it.each([
+    [{ parameter: '/levels/9/handlingTime' }, '/parameter'],
+    [{ observe: 'otters' }, '/observe'],
+    [{ steps: 1001 }, '/steps'],
+    [{ window: 0 }, '/window'],
+    [{ regimeMethod: 'guess' }, '/regimeMethod'],
+    [{ initial: { algae: 1 } }, '/initial/grazers'],
+  ])('rejects %o with a pointer at %s', (over, pointer) => {
+    const v = validateSweepRequest(body(over));
+    expect(v.ok).toBe(false);
+    if (!v.ok) expect(v.errors.map((e) => e.pointer)).toContain(pointer);
+  });
+
+  it('refuses too much work with a typed error before running', () => {
+    const req = request({ steps: 1000, transient: 50_000, window: 50_000 });
+    expect(() => assertSweepBounds(req)).toThrow(AnalysisBoundsError);
+    try {
+      assertSweepBounds(req);
+    } catch (e) {
+      expect((e as AnalysisBoundsError).bound).toBe('work');
+    }
+  });
+});
