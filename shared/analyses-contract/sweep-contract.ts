@@ -18,6 +18,7 @@ import {
   levelIdIssues,
   levelRecordIssues,
   parameterIssues,
+  parameterValueIssues,
   validateAnalysisBody,
 } from './validate-analysis-body';
 
@@ -124,6 +125,8 @@ export interface RegimeMapRequest {
 export function validateSweepRequest(input: unknown): ValidationResult<SweepRequest> {
   const r = validateAnalysisBody(sweepRequestSchema, input, (b, model) => [
     ...parameterIssues(model, b.parameter, '/parameter'),
+    ...parameterValueIssues(model, b.parameter, b.from, '/from'),
+    ...parameterValueIssues(model, b.parameter, b.to, '/to'),
     ...levelIdIssues(model, b.observe, '/observe'),
     ...levelRecordIssues(model, b.extinction, '/extinction'),
   ]);
@@ -148,6 +151,10 @@ export function validateRegimeMapRequest(input: unknown): ValidationResult<Regim
     const issues: ValidationIssue[] = [
       ...parameterIssues(model, b.x.parameter, '/x/parameter'),
       ...parameterIssues(model, b.y.parameter, '/y/parameter'),
+      ...(['x', 'y'] as const).flatMap((a) => [
+        ...parameterValueIssues(model, b[a].parameter, b[a].from, `/${a}/from`),
+        ...parameterValueIssues(model, b[a].parameter, b[a].to, `/${a}/to`),
+      ]),
       ...levelRecordIssues(model, b.extinction, '/extinction'),
     ];
     if (b.x.steps * b.y.steps > L.maxMapCells) {

@@ -1,7 +1,7 @@
 import type { z } from 'zod';
 import { chainModelSchema, type ChainModel } from '../model/chain-model';
 import { initialStateIssues } from '../model/initial-vector';
-import { getParameter } from '../model/parameter-pointer';
+import { getParameter, withParameter } from '../model/parameter-pointer';
 import { issuesFromZod } from '../model/zod-issues';
 import type { ValidationIssue, ValidationResult } from '../model/validation-issue';
 
@@ -64,6 +64,27 @@ export function parameterIssues(
     return [];
   } catch (e) {
     return [{ pointer, message: (e as Error).message.replace(/^[^:]*: /, '') }];
+  }
+}
+
+/**
+ * Issues at `pointer` when setting the parameter to `value` makes the model invalid (e.g. a
+ * negative rate); none when the parameter itself is bad (reported elsewhere).
+ */
+export function parameterValueIssues(
+  model: ChainModel,
+  parameter: string,
+  value: number,
+  pointer: string,
+): ValidationIssue[] {
+  if (parameterIssues(model, parameter, pointer).length > 0) return [];
+  try {
+    withParameter(model, parameter, value);
+    return [];
+  } catch (e) {
+    const errors = (e as { errors?: readonly ValidationIssue[] }).errors;
+    const why = errors?.[0]?.message ?? (e as Error).message;
+    return [{ pointer, message: `gives an invalid model at ${parameter}: ${why}` }];
   }
 }
 

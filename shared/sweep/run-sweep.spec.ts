@@ -121,6 +121,7 @@ describe('sweep requests', () => {
     [{ observe: 'otters' }, '/observe'],
     [{ steps: 1001 }, '/steps'],
     [{ window: 0 }, '/window'],
+    [{ from: -0.1 }, '/from'],
     [{ regimeMethod: 'guess' }, '/regimeMethod'],
     [{ initial: { algae: 1 } }, '/initial/grazers'],
   ])('rejects %o with a pointer at %s', (over, pointer) => {
