@@ -1,5 +1,5 @@
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
-import { Component, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { HASTINGS_POWELL_BENCHMARK, PROJECTION_CAUTIONS, type ChainModel } from '@tropline/core';
 import {
@@ -11,6 +11,7 @@ import { ProjectionPanel } from './projection-panel';
 
 @Component({
   imports: [ProjectionPanel],
+  changeDetection: ChangeDetectionStrategy.OnPush,
   template: `<tropline-projection-panel
     [model]="model()"
     [initial]="initial"
