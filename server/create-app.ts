@@ -5,6 +5,7 @@ import { pinoHttp } from 'pino-http';
 import type { Config } from './config';
 import { openDatabase, prepareDatabase, type PrepareOutcome } from './db/database';
 import { keyedApi } from './auth/keyed-api';
+import type { ComputeLimits } from './projections/projections-routes';
 import { docsRoutes } from './docs/docs-routes';
 import { healthRoutes } from './health/health-routes';
 import { notFound, problemHandler } from './http/problem';
@@ -29,6 +30,8 @@ export interface AppContext {
 export interface AppOptions {
   /** Clock in epoch milliseconds; defaults to `Date.now`. */
   readonly now?: () => number;
+  /** Tighter wall-time bounds (tests of the bounds themselves). */
+  readonly computeLimits?: Partial<ComputeLimits>;
 }
 
 /** The app plus its context. */
@@ -41,7 +44,7 @@ export type TroplineApp = Express & { locals: { tropline: AppContext } };
 export function createApp(config: Config, options: AppOptions = {}): TroplineApp {
   const now = options.now ?? Date.now;
   const db = openDatabase(config);
-  const keyed = keyedApi(db, now);
+  const keyed = keyedApi(db, now, options.computeLimits);
   const ready = prepareDatabase(db, config).then(async (outcome) => {
     if (config.nodeEnv !== 'production') {
       context.demoKeys = outcome.seeded

@@ -1,13 +1,24 @@
+import { availableParallelism } from 'node:os';
 import { Router } from 'express';
 import type { Knex } from 'knex';
 import { KeysService } from '../keys/keys-service';
 import { keysRoutes } from '../keys/keys-routes';
-import { projectionsRoutes } from '../projections/projections-routes';
+import { ProjectionPool } from '../projections/projection-pool';
+import {
+  COMPUTE_LIMITS,
+  projectionsRoutes,
+  type ComputeLimits,
+} from '../projections/projections-routes';
 import { ResultCache } from '../projections/result-cache';
 import { QuotasService } from '../quotas/quotas-service';
 import { usageRoutes } from '../quotas/usage-routes';
 import { keyCorsPreflight } from './key-cors';
 import { keyGuard } from './require-key';
+
+/** Worker threads for heavy work: all cores but the one serving requests, 1 to 4. */
+export function workerThreads(): number {
+  return Math.max(1, Math.min(4, availableParallelism() - 1));
+}
 
 /** The keyed part of `/api/v1` and what it holds on to. */
 export interface KeyedApi {
@@ -22,7 +33,11 @@ export interface KeyedApi {
  * Everything an API key reaches: CORS preflights for browser keys, keys, usage and the compute
  * routes. Built once per app over its database and clock.
  */
-export function keyedApi(db: Knex, now: () => number): KeyedApi {
+export function keyedApi(
+  db: Knex,
+  now: () => number,
+  limits: Partial<ComputeLimits> = {},
+): KeyedApi {
   const keys = new KeysService(db, now);
   const quotas = new QuotasService(db, now);
   const requireKey = keyGuard(keys, now);
@@ -33,6 +48,16 @@ export function keyedApi(db: Knex, now: () => number): KeyedApi {
   // 64 MB of serialised answers for 10 minutes: the demo portal's repeated views and the
   // bench's repeats hit it; engine answers are deterministic so a hit is exact.
   const cache = new ResultCache({ maxBytes: 64 * 2 ** 20, ttlMs: 10 * 60_000, now });
-  router.use(projectionsRoutes(quotas, cache, requireKey));
-  return { router, keys, quotas, close: async () => undefined };
+  const projectionPool = new ProjectionPool(workerThreads());
+  router.use(
+    projectionsRoutes(quotas, cache, projectionPool, { ...COMPUTE_LIMITS, ...limits }, requireKey),
+  );
+  return {
+    router,
+    keys,
+    quotas,
+    close: async () => {
+      await projectionPool.close();
+    },
+  };
 }

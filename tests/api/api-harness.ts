@@ -1,7 +1,7 @@
 import request, { type Test } from 'supertest';
 import { HASTINGS_POWELL_BENCHMARK } from '@tropline/core';
 import { testConfig, type Config } from '../../server/config';
-import { createApp, type TroplineApp } from '../../server/create-app';
+import { createApp, type AppOptions, type TroplineApp } from '../../server/create-app';
 import type { DemoKeys } from '../../server/keys/demo-keys';
 import { conformsToContract } from './openapi-contract';
 
@@ -30,9 +30,12 @@ export interface Harness {
 }
 
 /** Starts an app on a fresh in-memory database (or the given file) with a hand-moved clock. */
-export async function startHarness(overrides: Partial<Config> = {}): Promise<Harness> {
+export async function startHarness(
+  overrides: Partial<Config> = {},
+  options: Omit<AppOptions, 'now'> = {},
+): Promise<Harness> {
   const clock = new TestClock();
-  const app = createApp(testConfig(overrides), { now: clock.now });
+  const app = createApp(testConfig(overrides), { ...options, now: clock.now });
   await app.locals.tropline.ready;
   const demo = app.locals.tropline.demoKeys;
   if (!demo) throw new Error('the test database was not seeded with demo keys');

@@ -6,7 +6,8 @@ import { benchmarkProjection, DEMO_ORIGIN, startHarness, type Harness } from './
 describe('POST /api/v1/projections', () => {
   let h: Harness;
   beforeAll(async () => {
-    h = await startHarness();
+    // A short worker wall time, so the bound is reached quickly in the bound test.
+    h = await startHarness({}, { computeLimits: { workerWallTimeMs: 1000 } });
   });
   afterAll(() => h.close());
 
@@ -95,6 +96,12 @@ describe('POST /api/v1/projections', () => {
     expect(['time-limit', 'step-limit']).toContain(res.body.cause);
     const after = await h.call('get', '/usage', h.demo.serverKey).expect(200);
     expect(after.body.used).toBe(before.body.used);
+  });
+
+  it('runs a long projection on a worker thread with the same answer bit for bit', async () => {
+    const body = benchmarkProjection(2500, 251);
+    const res = await h.call('post', '/projections', h.demo.serverKey).send(body).expect(200);
+    expect(JSON.stringify(res.body)).toBe(JSON.stringify(project(body)));
   });
 
   it('answers equilibria, the interior one included', async () => {

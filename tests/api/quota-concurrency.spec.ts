@@ -50,7 +50,7 @@ describe('quota admission across processes sharing one database file', () => {
           body: JSON.stringify(body),
         });
         const headers = Object.fromEntries(res.headers.entries());
-        const json = await res.json();
+        const json = (await res.json()) as Record<string, unknown>;
         const problems = contract.check('POST', '/api/v1/projections', res.status, headers, json);
         return { status: res.status, headers, json, problems };
       }),
@@ -63,7 +63,7 @@ describe('quota admission across processes sharing one database file', () => {
     for (const r of refused) {
       expect(r.json.limit).toBe('monthly-units');
       expect(Number(r.headers['retry-after'])).toBeGreaterThan(0);
-      expect(parseRateLimit(r.headers.ratelimit)['monthly-units'].r).toBeLessThan(COST);
+      expect(parseRateLimit(r.headers.ratelimit!)['monthly-units']!.r).toBeLessThan(COST);
     }
     // Each admission saw its own counter value: remaining units 22, 20, …, 0 exactly once.
     const remaining = admitted.map((a) => parseRateLimit(a.headers.ratelimit)['monthly-units'].r);
