@@ -1,4 +1,5 @@
-import { compileChain, levelScales } from '../model/chain-kernel';
+import { levelScales } from '../model/chain-kernel';
+import { specialiseChain } from '../sweep/specialise-chain';
 import type { ChainModel } from '../model/chain-model';
 import { initialVector } from '../model/initial-vector';
 import { withParameter } from '../model/parameter-pointer';
@@ -62,7 +63,7 @@ export function applyChanges(
 export function runScenario(req: ComparisonRequest, index: number): ScenarioOutcome {
   const scenario = index === 0 ? { name: 'baseline', changes: [] } : req.scenarios[index - 1]!;
   const { model, initial } = applyChanges(req.model, req.initial, scenario.changes);
-  const kernel = compileChain(model);
+  const kernel = specialiseChain(model);
   const y0 = initialVector(model, initial);
   const n = y0.length;
   const atol = req.tolerance * Math.min(...levelScales(model));

@@ -1,4 +1,5 @@
-import { compileChain, levelScales } from '../model/chain-kernel';
+import { levelScales } from '../model/chain-kernel';
+import { specialiseChain } from '../sweep/specialise-chain';
 import { initialVector } from '../model/initial-vector';
 import { withParameter } from '../model/parameter-pointer';
 import type { ChainModel } from '../model/chain-model';
@@ -77,7 +78,7 @@ export function runEnsembleMembers(
   let evaluations = 0;
   for (let m = start; m < end; m++) {
     const { model, y0 } = drawMember(req, m);
-    const kernel = compileChain(model);
+    const kernel = specialiseChain(model);
     const base = (m - start) * S * n;
     const cBase = (m - start) * n;
     for (let i = 0; i < n; i++) {

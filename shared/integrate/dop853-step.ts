@@ -197,6 +197,8 @@ export function dop853Attempt(
   // New state from the 8th-order weights; error from the 5th- and 3rd-order embedded pairs,
   // combined as in DOP853 so that the estimate behaves like an 8th-order one.
   const m = s.errorComponents;
+  const atol = s.atol;
+  const rtol = s.rtol;
   let err5 = 0;
   let err3 = 0;
   for (let i = 0; i < n; i++) {
@@ -213,7 +215,7 @@ export function dop853Attempt(
     const yni = yi + h * b;
     yn[i] = yni;
     if (i < m) {
-      const sk = s.atol + s.rtol * Math.max(Math.abs(yi), Math.abs(yni));
+      const sk = atol + rtol * Math.max(Math.abs(yi), Math.abs(yni));
       const e3 = b - BHH_0 * k0[i]! - BHH_8 * k8[i]! - BHH_11 * k11[i]!;
       const e5 =
         E5_0 * k0[i]! +

@@ -1,5 +1,6 @@
 import type { ChainModel } from '../model/chain-model';
-import { compileChain, levelScales, type ChainKernel } from '../model/chain-kernel';
+import { specialiseChain } from '../sweep/specialise-chain';
+import { levelScales, type ChainKernel } from '../model/chain-kernel';
 import { initialVector } from '../model/initial-vector';
 import { lyapunovSpectrum, type LyapunovResult } from '../lyapunov/lyapunov-spectrum';
 import {
@@ -131,7 +132,7 @@ export function assessRegime(
   options: RegimeOptions = {},
 ): RegimeReport {
   const y0 = initialVector(model, initial as Record<string, number>);
-  const kernel = compileChain(model);
+  const kernel = specialiseChain(model);
   const observeIndex =
     options.observe === undefined ? undefined : kernel.ids.indexOf(options.observe);
   if (observeIndex === -1) throw new RangeError(`observe: no level "${options.observe}"`);

@@ -1,4 +1,5 @@
-import { compileChain, levelScales } from '../model/chain-kernel';
+import { levelScales } from '../model/chain-kernel';
+import { specialiseChain } from './specialise-chain';
 import { initialVector } from '../model/initial-vector';
 import { withParameter } from '../model/parameter-pointer';
 import { assessKernel, extinctionThresholds } from '../regime/assess-regime';
@@ -53,7 +54,7 @@ export function runRegimeMapCells(
       ys[yi]!,
     );
     const { report } = assessKernel(
-      compileChain(model),
+      specialiseChain(model),
       initialVector(model, req.initial as Record<string, number>),
       extinctionThresholds(model, req.extinction),
       {

@@ -1,4 +1,5 @@
-import { compileChain, levelScales } from '../model/chain-kernel';
+import { levelScales } from '../model/chain-kernel';
+import { specialiseChain } from './specialise-chain';
 import { initialVector } from '../model/initial-vector';
 import { withParameter } from '../model/parameter-pointer';
 import { Dop853 } from '../integrate/dop853';
@@ -66,7 +67,7 @@ export function runSweepRange(
   for (let i = start; i < end; i++) {
     const model = withParameter(req.model, req.parameter, values[i]!);
     const run = sweepPoint(
-      compileChain(model),
+      specialiseChain(model),
       values[i]!,
       req.continuation ? y : initialVector(model, req.initial as Record<string, number>),
       extinctionThresholds(model, req.extinction),
