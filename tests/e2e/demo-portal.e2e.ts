@@ -1,3 +1,5 @@
+/// <reference lib="dom" />
+// Page functions passed to page.evaluate run in the browser, so this file also sees DOM types.
 import { mkdirSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { type Browser, chromium, type Page } from 'playwright-core';
