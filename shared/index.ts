@@ -279,3 +279,253 @@ export type {
 } from './stability/classify-equilibrium';
 
 // ── Analyses (appended by the analyses work; keep below this line) ──────────────────────────
+
+// ── Analyses: regimes, sweeps, maps, ensembles, comparisons, pool (analyses work) ────────────
+export {
+  /** Dormand–Prince 8(5,3) with order-7 dense output; allocation-free, for the long runs. */
+  Dop853,
+} from './integrate/dop853';
+export type {
+  /** How an integration ended. */
+  Dop853Outcome,
+  /** Outcome and counters of one integration. */
+  Dop853Result,
+  /** Called after each accepted step. */
+  Dop853StepCallback,
+} from './integrate/dop853';
+export {
+  /** Thrown before integrating when a DOP853 option is unusable. */
+  Dop853OptionError,
+} from './integrate/dop853-options';
+export type {
+  /** DOP853 tolerances and limits. */
+  Dop853Options,
+  /** y' = f(t, y) written into a caller-owned buffer. */
+  RhsFunction,
+} from './integrate/dop853-options';
+export {
+  /** Benettin Lyapunov exponents with batch-means standard errors. */
+  lyapunovSpectrum,
+} from './lyapunov/lyapunov-spectrum';
+export type {
+  /** Exponents, errors, divergence and window statistics. */
+  LyapunovResult,
+} from './lyapunov/lyapunov-spectrum';
+export {
+  /** Thrown for an unusable Lyapunov option. */
+  LyapunovOptionError,
+} from './lyapunov/lyapunov-options';
+export type {
+  /** Transient, window, exponents, batches, tolerances. */
+  LyapunovOptions,
+} from './lyapunov/lyapunov-options';
+export {
+  /** The regime rules (collapse, equilibrium, chaotic, cycle) applied to a run. */
+  classifyRegime,
+  /** ln(Δ/δ0)/λ for λ > 0, else undefined. */
+  predictabilityHorizon,
+  /** "not limited by chaos". */
+  NOT_LIMITED_BY_CHAOS,
+} from './regime/classify-regime';
+export type {
+  /** 'equilibrium' | 'cycle' | 'chaotic' | 'collapse'. */
+  Regime,
+  /** Thresholds of the classification. */
+  RegimeRules,
+  /** A regime with its period or collapsed levels. */
+  RegimeVerdict,
+} from './regime/classify-regime';
+export {
+  /** The `/regimes` computation: regime, exponent, period, predictability horizon. */
+  assessRegime,
+  /** The same on a compiled kernel and start vector. */
+  assessKernel,
+  /** Quasi-extinction thresholds in level order (default 1e-6 of each level's scale). */
+  extinctionThresholds,
+  /** Default quasi-extinction threshold as a fraction of the level scale. */
+  DEFAULT_EXTINCTION_FRACTION,
+  /** Thrown when an analysis integration cannot finish. */
+  AnalysisRunError,
+} from './regime/assess-regime';
+export type {
+  /** Options of a regime assessment. */
+  RegimeOptions,
+  /** The regime answer with its evidence. */
+  RegimeReport,
+} from './regime/assess-regime';
+export {
+  /** Period and maxima per period from the recurrence of successive maxima. */
+  periodFromMaxima,
+} from './regime/period-from-maxima';
+export {
+  /** Local maxima of one component located from DOP853's dense output. */
+  LocalMaxima,
+} from './regime/local-maxima';
+export {
+  /** A chain kernel specialised to one model (same equations as compileChain, unrolled). */
+  specialiseChain,
+} from './sweep/specialise-chain';
+export {
+  /** Sweep points [start, end) in-process. */
+  runSweepRange,
+  /** The parameter values of a sweep. */
+  sweepValues,
+  /** Weighted work of a sweep. */
+  sweepWork,
+  /** Throws AnalysisBoundsError for an oversized sweep. */
+  assertSweepBounds,
+} from './sweep/run-sweep';
+export type {
+  /** One value of a bifurcation diagram. */
+  SweepPoint,
+} from './sweep/sweep-point';
+export {
+  /** Regime-map cells [start, end) in-process. */
+  runRegimeMapCells,
+  /** Row-major cells → the map response. */
+  assembleRegimeMap,
+  /** Weighted work of a regime map. */
+  regimeMapWork,
+  /** Throws AnalysisBoundsError for an oversized map. */
+  assertRegimeMapBounds,
+} from './sweep/run-regime-map';
+export type {
+  /** One cell of a regime map. */
+  RegimeMapCell,
+} from './sweep/run-regime-map';
+export {
+  /** Ensemble members [start, end) in-process. */
+  runEnsembleMembers,
+  /** Sample times of an ensemble. */
+  ensembleTimes,
+  /** Throws AnalysisBoundsError for an oversized ensemble. */
+  assertEnsembleBounds,
+} from './ensemble/run-ensemble-members';
+export {
+  /** Percentile bands and quasi-extinction probabilities from all members. */
+  summariseEnsemble,
+  /** Quantile by Hyndman & Fan definition 7. */
+  quantileSorted,
+} from './ensemble/summarise-ensemble';
+export type {
+  /** An ensemble's summary. */
+  EnsembleResult,
+  /** p5 … p95 per sample time. */
+  PercentileBands,
+} from './ensemble/summarise-ensemble';
+export {
+  /** One draw from a distribution. */
+  sampleDistribution,
+  /** Thrown when a truncation keeps too little of a distribution. */
+  DistributionError,
+} from './ensemble/distribution';
+export type {
+  /** Normal, log-normal (optionally truncated) or uniform. */
+  Distribution,
+} from './ensemble/distribution';
+export {
+  /** The seeded pure-rand stream of one ensemble member. */
+  memberGenerator,
+} from './ensemble/member-generator';
+export {
+  /** One scenario of a comparison (0 = baseline). */
+  runScenario,
+  /** A scenario's changes applied to the baseline (never mutating it). */
+  applyChanges,
+  /** Throws AnalysisBoundsError for an oversized comparison. */
+  assertComparisonBounds,
+} from './compare/compare-scenarios';
+export type {
+  /** One scenario's outcome. */
+  ScenarioOutcome,
+} from './compare/compare-scenarios';
+export type {
+  /** Per-level figures of one scenario. */
+  LevelSummary,
+} from './compare/scenario-levels';
+export {
+  /** The piscina worker pool the server runs analyses on. */
+  createAnalysisPool,
+} from './pool/analysis-pool';
+export type {
+  /** The pool: runSweep, runRegimeMap, runEnsemble, runComparison, runRegime, close. */
+  AnalysisPool,
+  /** `{ size, chunksPerWorker? }`. */
+  AnalysisPoolOptions,
+  /** `{ onProgress?, signal? }`. */
+  AnalysisRunOptions,
+  /** A sweep's points and counters. */
+  SweepResult,
+  /** A regime map. */
+  RegimeMapResult,
+  /** A comparison's scenarios. */
+  ComparisonResult,
+} from './pool/analysis-pool';
+export {
+  /** Bounds on every analysis request. */
+  ANALYSIS_LIMITS,
+  /** A request too large to run, with the pointer of the field to shrink. */
+  AnalysisBoundsError,
+} from './analyses-contract/analysis-limits';
+export type {
+  /** Which bound a request broke. */
+  AnalysisBound,
+} from './analyses-contract/analysis-limits';
+export {
+  /** zod schema of the regime request body. */
+  regimeRequestSchema,
+  /** zod schema of the regime response. */
+  regimeResponseSchema,
+  /** Validates a regime request; pointers relative to the body. */
+  validateRegimeRequest,
+} from './analyses-contract/regime-contract';
+export type {
+  /** A validated regime request. */
+  RegimeRequest,
+} from './analyses-contract/regime-contract';
+export {
+  /** zod schema of the sweep request body. */
+  sweepRequestSchema,
+  /** zod schema of a sweep's result. */
+  sweepResultSchema,
+  /** Validates a sweep request. */
+  validateSweepRequest,
+  /** zod schema of the regime-map request body. */
+  regimeMapRequestSchema,
+  /** zod schema of a regime map. */
+  regimeMapResultSchema,
+  /** Validates a regime-map request. */
+  validateRegimeMapRequest,
+} from './analyses-contract/sweep-contract';
+export type {
+  /** A validated sweep request. */
+  SweepRequest,
+  /** A validated regime-map request. */
+  RegimeMapRequest,
+} from './analyses-contract/sweep-contract';
+export {
+  /** zod schema of the ensemble request body. */
+  ensembleRequestSchema,
+  /** zod schema of an ensemble's result. */
+  ensembleResultSchema,
+  /** zod schema of an uncertainty distribution. */
+  distributionSchema,
+  /** Validates an ensemble request. */
+  validateEnsembleRequest,
+} from './analyses-contract/ensemble-contract';
+export type {
+  /** A validated ensemble request. */
+  EnsembleRequest,
+} from './analyses-contract/ensemble-contract';
+export {
+  /** zod schema of the comparison request body. */
+  comparisonRequestSchema,
+  /** zod schema of a comparison's result. */
+  comparisonResultSchema,
+  /** Validates a comparison request. */
+  validateComparisonRequest,
+} from './analyses-contract/comparison-contract';
+export type {
+  /** A validated comparison request. */
+  ComparisonRequest,
+} from './analyses-contract/comparison-contract';

@@ -1,0 +1,191 @@
+import { pathToFileURL } from 'node:url';
+import { Solver } from 'odex';
+import { compileChain } from '../../shared/model/chain-kernel';
+import { withParameter } from '../../shared/model/parameter-pointer';
+import {
+  validateSweepRequest,
+  type SweepRequest,
+} from '../../shared/analyses-contract/sweep-contract';
+import { validateEnsembleRequest } from '../../shared/analyses-contract/ensemble-contract';
+import { runSweepRange, sweepValues } from '../../shared/sweep/run-sweep';
+import { createAnalysisPool } from '../../shared/pool/analysis-pool';
+import { benchmarkChain, BENCHMARK_INITIAL } from '../../tests/reference/analyses-benchmark-chain';
+
+/**
+ * The issue's sweep: 100 values of b1 over 2.0–6.2 on the Hastings & Powell chain, transient
+ * 5000, window 5000, rtol 1e-8, maxima of the top level. Timed as the odex path (the engine's
+ * generic kernel with odex 2.0.4 and its dense output, the baseline measured in this run), as
+ * DOP853 in-process, and on pools of 1 and 2 warm workers; then an ensemble of 1000 members on 1
+ * and 2 workers. Prints times and ratios; asserts nothing about time.
+ */
+export async function run(): Promise<void> {
+  const sweep = ok(
+    validateSweepRequest({
+      model: benchmarkChain(3),
+      initial: BENCHMARK_INITIAL,
+      parameter: '/levels/1/handlingTime',
+      from: 2.0 / 5,
+      to: 6.2 / 5,
+      steps: 100,
+      observe: 'fish',
+      transient: 5000,
+      window: 5000,
+      tolerance: 1e-8,
+    }),
+  );
+  console.log('analyses: b1 sweep, 100 values 2.0..6.2, transient 5000, window 5000, rtol 1e-8');
+  const odex = time(() => odexSweep(sweep));
+  const inProcess = time(() => runSweepRange(sweep, 0, sweep.steps));
+  const pools = [1, 2].map((size) => createAnalysisPool({ size }));
+  try {
+    const onPool: number[] = [];
+    for (const pool of pools) {
+      await pool.runSweep({ ...sweep, steps: 2 * pool.size }); // start and warm every worker
+      await pool.runSweep(sweep);
+      const t0 = performance.now();
+      await pool.runSweep(sweep);
+      onPool.push((performance.now() - t0) / 1000);
+    }
+    const agree = compareMaxima(inProcess.value.points, odex.value);
+    report('odex path (baseline)', odex.seconds, odex.seconds);
+    report('DOP853 in-process', inProcess.seconds, odex.seconds);
+    report('pool, 1 worker', onPool[0]!, odex.seconds);
+    report('pool, 2 workers', onPool[1]!, odex.seconds);
+    console.log(`  parallel speed-up 1 -> 2 workers: ${(onPool[0]! / onPool[1]!).toFixed(2)}x`);
+    console.log(
+      `  maxima vs odex path on non-chaotic values: ${agree.matched}/${agree.compared} agree ` +
+        `(largest relative difference ${agree.worst.toExponential(1)})`,
+    );
+    console.log(`  regimes along b1: ${regimeRanges(inProcess.value.points)}`);
+
+    const ensemble = ok(
+      validateEnsembleRequest({
+        model: benchmarkChain(3),
+        initial: BENCHMARK_INITIAL,
+        horizon: 500,
+        samples: 101,
+        members: 1000,
+        seed: 1991,
+        parameters: [
+          {
+            pointer: '/levels/1/handlingTime',
+            distribution: { kind: 'normal', mean: 0.6, sd: 0.03, min: 0.4, max: 0.8 },
+          },
+        ],
+        initialStates: [
+          { level: 'fish', distribution: { kind: 'lognormal', median: 9.9, sigma: 0.1 } },
+        ],
+      }),
+    );
+    console.log('analyses: ensemble, 1000 members, horizon 500, 101 samples');
+    const onEnsemble: number[] = [];
+    for (const pool of pools) {
+      await pool.runEnsemble({ ...ensemble, members: 20 });
+      const t0 = performance.now();
+      await pool.runEnsemble(ensemble);
+      onEnsemble.push((performance.now() - t0) / 1000);
+    }
+    report('pool, 1 worker', onEnsemble[0]!, onEnsemble[0]!);
+    report('pool, 2 workers', onEnsemble[1]!, onEnsemble[0]!);
+    console.log(`  parallel speed-up: ${(onEnsemble[0]! / onEnsemble[1]!).toFixed(2)}x`);
+  } finally {
+    await Promise.all(pools.map((p) => p.close()));
+  }
+}
+
+type Points = ReturnType<typeof runSweepRange>['points'];
+
+/** The same sweep through odex 2.0.4 and the generic kernel, maxima from odex's dense output. */
+function odexSweep(req: SweepRequest): number[][] {
+  return sweepValues(req.from, req.to, req.steps).map((value) => {
+    const kernel = compileChain(withParameter(req.model, req.parameter, value));
+    const y = new Float64Array(3);
+    const d = new Float64Array(3);
+    const f = (t: number, v: number[]) => {
+      y.set(v);
+      kernel.rhs(t, y, d);
+      return Array.from(d);
+    };
+    const solver = new Solver(3);
+    solver.relativeTolerance = req.tolerance;
+    solver.absoluteTolerance = req.tolerance;
+    solver.maxSteps = 10_000_000;
+    const start = solver.solve(f, 0, [0.76, 0.16, 9.9], req.transient).y;
+    solver.denseOutput = true;
+    const maxima: number[] = [];
+    let before = f(0, start)[2]!;
+    solver.solve(f, 0, start, req.window, (_n, xold, x, yy, dense) => {
+      const after = f(x, yy)[2]!;
+      if (xold < x && dense && before > 0 && after <= 0) {
+        let a = xold;
+        let b = x;
+        const g = (Math.sqrt(5) - 1) / 2;
+        for (let i = 0; i < 60; i++) {
+          const c = b - g * (b - a);
+          const e = a + g * (b - a);
+          if (dense(2, c) > dense(2, e)) b = e;
+          else a = c;
+        }
+        maxima.push(dense(2, 0.5 * (a + b)));
+      }
+      before = after;
+    });
+    return maxima;
+  });
+}
+
+function compareMaxima(points: Points, odex: number[][]) {
+  let compared = 0;
+  let matched = 0;
+  let worst = 0;
+  points.forEach((p, i) => {
+    if (p.regime !== 'cycle') return;
+    compared++;
+    const ours = distinct(p.maxima);
+    const theirs = distinct(odex[i]!);
+    const diffs = ours.map((m) => Math.min(...theirs.map((r) => Math.abs(r - m) / Math.abs(m))));
+    const w = Math.max(...diffs);
+    worst = Math.max(worst, w);
+    if (ours.length === theirs.length && w <= 1e-5) matched++;
+  });
+  return { compared, matched, worst };
+}
+
+function distinct(xs: number[]): number[] {
+  return xs.reduce<number[]>(
+    (acc, x) => (acc.some((a) => Math.abs(a - x) <= 1e-5 * Math.abs(x)) ? acc : [...acc, x]),
+    [],
+  );
+}
+
+/** Runs of equal regime along b1, e.g. "equilibrium 2.000–2.085, cycle 2.127–2.382, …". */
+function regimeRanges(points: Points): string {
+  const runs: string[] = [];
+  let start = 0;
+  for (let i = 1; i <= points.length; i++) {
+    if (i === points.length || points[i]!.regime !== points[start]!.regime) {
+      const b = (k: number) => (5 * points[k]!.value).toFixed(3);
+      runs.push(`${points[start]!.regime} ${b(start)}${i - 1 > start ? `–${b(i - 1)}` : ''}`);
+      start = i;
+    }
+  }
+  return runs.join(', ');
+}
+
+function time<T>(fn: () => T): { value: T; seconds: number } {
+  const t0 = performance.now();
+  const value = fn();
+  return { value, seconds: (performance.now() - t0) / 1000 };
+}
+
+function report(label: string, seconds: number, baseline: number): void {
+  const ratio = baseline / seconds;
+  console.log(`  ${label.padEnd(24)} ${seconds.toFixed(3)} s   ${ratio.toFixed(2)}x vs baseline`);
+}
+
+function ok<T>(v: { ok: true; value: T } | { ok: false; errors: unknown }): T {
+  if (!v.ok) throw new Error(JSON.stringify(v.errors));
+  return v.value;
+}
+
+if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) await run();
