@@ -10,6 +10,7 @@ import {
   rotateKeyCommand,
 } from './cli/key-commands';
 import { createTenantCommand, setQuotaCommand } from './cli/tenant-commands';
+import { createUserCommand } from './cli/user-commands';
 
 /** Every operator command; the accounts feature adds `create-user` here. */
 export const COMMANDS: readonly CliCommand[] = [
@@ -19,6 +20,7 @@ export const COMMANDS: readonly CliCommand[] = [
   revokeKeyCommand,
   rotateKeyCommand,
   listKeysCommand,
+  createUserCommand,
 ];
 
 function usage(): string {

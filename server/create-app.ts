@@ -5,6 +5,8 @@ import { pinoHttp } from 'pino-http';
 import type { Config } from './config';
 import { openDatabase, prepareDatabase, type PrepareOutcome } from './db/database';
 import { keyedApi } from './auth/keyed-api';
+import { accountsApi, type AccountsApi } from './accounts/accounts-api';
+import { DEMO_USERS, type DemoUser } from '../seeds/03-demo-users';
 import type { ComputeLimits } from './projections/projections-routes';
 import { docsRoutes } from './docs/docs-routes';
 import { healthRoutes } from './health/health-routes';
@@ -24,6 +26,10 @@ export interface AppContext {
   readonly now: () => number;
   /** The demo tenant's keys in plaintext, once `ready` (development and test only). */
   demoKeys?: DemoKeys;
+  /** Sign-in, sessions, mail (and the dev mail catcher) of the console. */
+  readonly accounts: AccountsApi;
+  /** The demo sign-ins with their passwords (development and test only). */
+  demoSignIns?: readonly DemoUser[];
 }
 
 /** Options for tests. */
@@ -45,12 +51,15 @@ export function createApp(config: Config, options: AppOptions = {}): TroplineApp
   const now = options.now ?? Date.now;
   const db = openDatabase(config);
   const keyed = keyedApi(db, now, options.computeLimits);
+  const accounts = accountsApi(db, config, now, keyed);
   const ready = prepareDatabase(db, config).then(async (outcome) => {
     if (config.nodeEnv !== 'production') {
       context.demoKeys = outcome.seeded
         ? await issueDemoKeys(db, config, now)
         : readDemoKeys(config);
+      context.demoSignIns = DEMO_USERS;
     }
+    await accounts.start();
     return outcome;
   });
   ready.catch(() => undefined); // reported by whoever awaits it (main.ts or the first request)
@@ -59,7 +68,9 @@ export function createApp(config: Config, options: AppOptions = {}): TroplineApp
     db,
     ready,
     now,
+    accounts,
     close: async () => {
+      await accounts.close();
       await keyed.close();
       await db.destroy();
     },
@@ -98,6 +109,7 @@ export function createApp(config: Config, options: AppOptions = {}): TroplineApp
   const api = express.Router();
   api.use(express.json({ limit: '256kb', strict: true }));
   api.use(healthRoutes(db));
+  api.use(accounts.router);
   api.use(keyed.router);
   api.use(notFound);
   app.use('/api/v1', api);

@@ -529,3 +529,27 @@ export type {
   /** A validated comparison request. */
   ComparisonRequest,
 } from './analyses-contract/comparison-contract';
+
+// ── Access: the role matrix (accounts work) ─────────────────────────────────────────────────
+export {
+  /** Roles a member holds in one tenant. */
+  TENANT_ROLES,
+  /** Every action the matrix governs. */
+  ACTIONS,
+  /** Which role may do what; the server enforces it, the console reads it. */
+  ROLE_MATRIX,
+  /** Whether a role may perform an action. */
+  can,
+  /** Whether a member with one role may grant or remove another. */
+  canAssignRole,
+  /** Whether a string names a tenant role. */
+  isTenantRole,
+} from './access/role-matrix';
+export type {
+  /** A role in a tenant. */
+  TenantRole,
+  /** A tenant role or the platform operator. */
+  Role,
+  /** One action of the matrix. */
+  Action,
+} from './access/role-matrix';
