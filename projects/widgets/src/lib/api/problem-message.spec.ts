@@ -1,5 +1,5 @@
 import { HttpErrorResponse, HttpHeaders } from '@angular/common/http';
-import { problemMessage } from './problem-message';
+import { problemFromDocument, problemMessage } from './problem-message';
 
 const now = new Date('2026-12-01T12:00:00Z');
 
@@ -49,5 +49,29 @@ describe('problemMessage', () => {
     const err = problemMessage(failure(0, new ProgressEvent('error')), now);
     expect(err.status).toBe(0);
     expect(err.retryable).toBe(true);
+  });
+});
+
+describe('problemFromDocument', () => {
+  it('maps a failed job’s problem like an HTTP answer', () => {
+    const err = problemFromDocument({
+      status: 409,
+      title: 'The job was cancelled',
+      detail: 'Cancelled at the client’s request (DELETE).',
+    });
+    expect(err.status).toBe(409);
+    expect(err.title).toBe('The job was cancelled');
+    expect(err.message).toContain('Cancelled');
+  });
+
+  it('treats a job that failed without a document as a server failure', () => {
+    expect(problemFromDocument(undefined).retryable).toBe(true);
+  });
+});
+
+describe('retry time wording', () => {
+  it('writes the reset time in the configured locale', () => {
+    const err = problemMessage(failure(429, null, { 'Retry-After': '3600' }), now, 'de-DE');
+    expect(err.message).toMatch(/You can try again after .*\d{2}:\d{2}\./);
   });
 });

@@ -22,6 +22,15 @@ export interface TroplineApiError {
   readonly retryable: boolean;
 }
 
+/** A time of day (and the date when not today) in the reader's locale. */
+function formatWhen(at: Date, now: Date, locale?: string): string {
+  const sameDay = at.toDateString() === now.toDateString();
+  return new Intl.DateTimeFormat(locale, {
+    ...(sameDay ? {} : { dateStyle: 'medium' as const }),
+    timeStyle: 'short',
+  }).format(at);
+}
+
 interface ProblemBody {
   title?: string;
   detail?: string;
@@ -41,7 +50,11 @@ function retryAfter(res: HttpErrorResponse, now: Date): Date | undefined {
  * Maps an HTTP failure (ideally an RFC 9457 problem document) to a {@link TroplineApiError}
  * whose message a member of the public or a web developer can act on.
  */
-export function problemMessage(res: HttpErrorResponse, now = new Date()): TroplineApiError {
+export function problemMessage(
+  res: HttpErrorResponse,
+  now = new Date(),
+  locale?: string,
+): TroplineApiError {
   const body: ProblemBody =
     res.error && typeof res.error === 'object' ? (res.error as ProblemBody) : {};
   const detail = body.detail ?? '';
@@ -86,7 +99,7 @@ export function problemMessage(res: HttpErrorResponse, now = new Date()): Tropli
         title: body.title ?? 'Too many projections for now',
         message:
           (detail || 'The usage limit was reached.') +
-          (retryAt ? ` You can try again after ${retryAt.toLocaleString()}.` : ''),
+          (retryAt ? ` You can try again after ${formatWhen(retryAt, now, locale)}.` : ''),
         fieldErrors,
         retryAt,
         retryable: true,
@@ -109,4 +122,16 @@ export function problemMessage(res: HttpErrorResponse, now = new Date()): Tropli
         retryable: res.status >= 500,
       };
   }
+}
+
+/**
+ * Maps a problem document that arrived inside a successful response (a failed job's `error`)
+ * the same way as an HTTP failure.
+ */
+export function problemFromDocument(
+  doc: Record<string, unknown> | undefined,
+  locale?: string,
+): TroplineApiError {
+  const status = typeof doc?.['status'] === 'number' ? doc['status'] : 500;
+  return problemMessage(new HttpErrorResponse({ status, error: doc ?? null }), new Date(), locale);
 }

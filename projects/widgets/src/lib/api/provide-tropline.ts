@@ -3,6 +3,11 @@ import { type EnvironmentProviders, makeEnvironmentProviders } from '@angular/co
 import { provideEchartsCore } from 'ngx-echarts';
 import { troplineEcharts } from './tropline-echarts';
 import { defaultTroplineOptions, TROPLINE_OPTIONS, type TroplineOptions } from './tropline-options';
+import {
+  DEFAULT_TROPLINE_STRINGS,
+  TROPLINE_STRINGS,
+  type TroplineStrings,
+} from './tropline-strings';
 
 /**
  * Everything a host app provides to use the widgets: the API's address and key, HttpClient and
@@ -14,8 +19,11 @@ import { defaultTroplineOptions, TROPLINE_OPTIONS, type TroplineOptions } from '
  * });
  * ```
  */
-export function provideTropline(options: TroplineOptions): EnvironmentProviders {
+export function provideTropline(
+  options: TroplineOptions & { readonly strings?: Partial<TroplineStrings> },
+): EnvironmentProviders {
   if (!options.apiUrl) throw new Error('provideTropline: apiUrl is required');
+  const { strings, ...rest } = options;
   return makeEnvironmentProviders([
     provideHttpClient(withFetch()),
     provideEchartsCore({ echarts: troplineEcharts }),
@@ -23,9 +31,10 @@ export function provideTropline(options: TroplineOptions): EnvironmentProviders 
       provide: TROPLINE_OPTIONS,
       useValue: {
         ...defaultTroplineOptions(),
-        ...options,
+        ...rest,
         apiUrl: options.apiUrl.replace(/\/+$/, ''),
       },
     },
+    { provide: TROPLINE_STRINGS, useValue: { ...DEFAULT_TROPLINE_STRINGS, ...strings } },
   ]);
 }

@@ -14,6 +14,11 @@ export interface TroplineOptions {
   readonly debounceMs?: number;
   /** How charts are drawn: `canvas` (default, fastest) or `svg` (crisp when printed). */
   readonly renderer?: 'canvas' | 'svg';
+  /**
+   * Colour scheme of the widgets: `auto` (default) follows the host page's `color-scheme` and
+   * the reader's system setting at runtime; `light` or `dark` pins one.
+   */
+  readonly theme?: 'auto' | 'light' | 'dark';
 }
 
 /** Options with every default filled in. */
@@ -28,6 +33,7 @@ export function defaultTroplineOptions(): ResolvedTroplineOptions {
     showCautions: true,
     debounceMs: 250,
     renderer: 'canvas',
+    theme: 'auto',
   };
 }
 

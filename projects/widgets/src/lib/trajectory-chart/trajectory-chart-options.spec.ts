@@ -3,6 +3,7 @@ import {
   formatUnit,
   type TrajectoryData,
   trajectoryChartOptions,
+  trajectoryTable,
 } from './trajectory-chart-options';
 
 const data: TrajectoryData = {
@@ -21,6 +22,11 @@ interface AxisLike {
   name: string;
 }
 interface SeriesLike {
+  id: string;
+  name: string;
+  type: string;
+  stack?: string;
+  lineStyle?: { opacity?: number; type?: unknown };
   yAxisIndex: number;
   data: [number, number | null][];
   markArea?: { data: [{ xAxis: number }, { xAxis: number }][] };
@@ -46,14 +52,57 @@ describe('trajectoryChartOptions', () => {
     expect(option.series[0]!.data[1]).toEqual([1, 320]);
   });
 
-  it('shades the span past the predictability horizon', () => {
+  it('shades the span past the predictability horizon and fades every line there', () => {
     const option = trajectoryChartOptions(data, { ...settings, predictabilityHorizon: 1.5 }) as {
       series: SeriesLike[];
     };
-    const band = option.series[0]!.markArea!.data[0]!;
+    const mark = option.series.find((s) => s.id === 'predictability-horizon')!;
+    const band = mark.markArea!.data[0]!;
     expect(band[0].xAxis).toBe(1.5);
     expect(band[1].xAxis).toBe(2);
-    expect(option.series[1]!.markArea).toBeUndefined();
+    const deer = option.series.filter((s) => s.name === 'Red deer');
+    expect(deer.map((s) => s.data.map((p) => p[0]))).toEqual([[0, 1, 2], [2]]);
+    expect(deer[1]!.lineStyle!.opacity).toBeLessThan(0.5);
+    expect(deer[0]!.lineStyle!.opacity).toBeUndefined();
+  });
+
+  it('draws nothing faded when the horizon lies past the end', () => {
+    const option = trajectoryChartOptions(data, { ...settings, predictabilityHorizon: 9 }) as {
+      series: SeriesLike[];
+    };
+    expect(option.series.map((s) => s.id)).toEqual(['heather', 'deer', 'wolves']);
+  });
+
+  it('gives each level its own dash pattern so colour is not the only cue', () => {
+    const option = trajectoryChartOptions(data, settings) as { series: SeriesLike[] };
+    const dashes = option.series.map((s) => JSON.stringify(s.lineStyle!.type));
+    expect(new Set(dashes).size).toBe(3);
+  });
+
+  it('stacks an ensemble band as lower edge plus width on the level’s axis', () => {
+    const option = trajectoryChartOptions(
+      { ...data, bands: [{ id: 'deer', lower: [7, 8, 9], upper: [9, 11, 12] }] },
+      settings,
+    ) as { series: SeriesLike[] };
+    const band = option.series.filter((s) => s.stack === 'band-deer');
+    expect(band.map((s) => s.data.map((p) => p[1]))).toEqual([
+      [7, 8, 9],
+      [2, 3, 3],
+    ]);
+    expect(band.every((s) => s.yAxisIndex === 1)).toBe(true);
+  });
+
+  it('adds monitoring points as a scatter series, gaps kept as null', () => {
+    const option = trajectoryChartOptions(
+      { ...data, observations: [{ id: 'wolves', times: [0.5, 1.7], values: [0.025, null] }] },
+      settings,
+    ) as { series: SeriesLike[] };
+    const points = option.series.find((s) => s.type === 'scatter')!;
+    expect(points.name).toBe('Grey wolf (monitoring)');
+    expect(points.data).toEqual([
+      [0.5, 0.025],
+      [1.7, null],
+    ]);
   });
 
   it('enables the ARIA description', () => {
@@ -73,7 +122,30 @@ describe('formatUnit', () => {
   });
 });
 
+describe('trajectoryTable', () => {
+  it('has a time column and one column per level with its unit', () => {
+    const table = trajectoryTable(data);
+    expect(table.columns).toEqual([
+      'time (year)',
+      'Heather (t km⁻²)',
+      'Red deer (animals km⁻²)',
+      'Grey wolf (animals km⁻²)',
+    ]);
+    expect(table.rows[1]).toEqual([1, 320, 9, 0.03]);
+  });
+});
+
 describe('describeTrajectory', () => {
+  it('says where the predictability horizon falls', () => {
+    expect(describeTrajectory(data, 'en', 1.5)).toContain(
+      'past 1.5 years (the predictability horizon) the lines are faded',
+    );
+  });
+
+  it('formats numbers for the locale', () => {
+    expect(describeTrajectory(data, 'de', 1.5)).toContain('past 1,5 years');
+  });
+
   it('states the span and each level’s range and end value', () => {
     const text = describeTrajectory(data, 'en');
     expect(text).toMatch(/^Trajectory of 3 food-chain levels over 2 years\./);

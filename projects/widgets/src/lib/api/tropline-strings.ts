@@ -1,0 +1,171 @@
+import { InjectionToken } from '@angular/core';
+import type { Regime } from './analysis-types';
+
+/**
+ * Every word the widgets show, in one place, so a host can translate or reword them with
+ * `provideTropline({ strings: { … } })`. Numbers and dates inside are already formatted for the
+ * configured locale when these functions are called.
+ */
+export interface TroplineStrings {
+  /** Button that shows a chart's numbers as a table. */
+  readonly showTable: string;
+  /** Button that hides the table again. */
+  readonly hideTable: string;
+  /** Export buttons' group label. */
+  readonly exportLabel: string;
+  /** Export as PNG image. */
+  readonly exportPng: string;
+  /** Export as SVG drawing. */
+  readonly exportSvg: string;
+  /** Export as CSV table. */
+  readonly exportCsv: string;
+  /** Shown while a computation runs. */
+  readonly computing: string;
+  /** Cancel button of a background job. */
+  readonly cancel: string;
+  /** Shown when a background job was cancelled. */
+  readonly cancelled: string;
+  /** Progress of a background job. */
+  readonly jobProgress: (percent: string) => string;
+  /** Sentence added to a refusal that says when to try again. */
+  readonly retryAfter: (when: string) => string;
+  /** Shown where there is nothing to draw yet. */
+  readonly empty: string;
+  /** Label of the time axis. */
+  readonly timeAxis: (unit: string) => string;
+  /** Name of the band past the predictability horizon. */
+  readonly pastHorizon: string;
+  /** Legend name of the observed monitoring points. */
+  readonly observed: (level: string) => string;
+  /** Legend name of an ensemble band. */
+  readonly band: (level: string) => string;
+  /** Plain name of each regime. */
+  readonly regimeName: Readonly<Record<Regime, string>>;
+  /** One plain sentence per regime. */
+  readonly regimeSentence: Readonly<Record<Regime, string>>;
+  /** Whether an equilibrium attracts, in words. */
+  readonly stable: string;
+  /** The opposite. */
+  readonly unstable: string;
+  /** Heading of the regime summary. */
+  readonly regimeHeading: string;
+  /** Label of the largest exponent. */
+  readonly exponentLabel: string;
+  /** Label of the predictability horizon. */
+  readonly horizonLabel: string;
+  /** Horizon value when chaos does not limit it. */
+  readonly notLimited: string;
+  /** Label of the cycle period. */
+  readonly periodLabel: string;
+  /** Heading of the equilibria list. */
+  readonly equilibriaHeading: string;
+  /** Accessible name of the cautions. */
+  readonly cautionsLabel: string;
+  /** Reset button of the parameter form. */
+  readonly resetToPublished: string;
+  /** Legend of the parameter form. */
+  readonly parametersHeading: string;
+  /** Message under a field below its minimum. */
+  readonly tooLow: (min: string, unit: string) => string;
+  /** Message under a field above its maximum. */
+  readonly tooHigh: (max: string, unit: string) => string;
+  /** Message under an empty or non-numeric field. */
+  readonly notANumber: string;
+  /** Note beside a value the public may not change. */
+  readonly fixedByPublisher: string;
+  /** Heading of the comparison metrics table. */
+  readonly comparisonHeading: string;
+  /** Toggle: one chart per scenario. */
+  readonly smallMultiples: string;
+  /** Toggle: all scenarios on one chart. */
+  readonly overlay: string;
+  /** Comparison metric names. */
+  readonly metric: {
+    readonly atHorizon: string;
+    readonly windowMean: string;
+    readonly minimum: string;
+    readonly thresholdCrossing: string;
+  };
+  /** Threshold never crossed. */
+  readonly never: string;
+  /** Marker of the current parameter value on the bifurcation chart. */
+  readonly currentValue: string;
+  /** Legend name of the transient part of a phase portrait. */
+  readonly transient: string;
+  /** Legend name of the long-run part of a phase portrait. */
+  readonly longRun: string;
+  /** Legend name of a nullcline. */
+  readonly nullcline: (level: string) => string;
+  /** Legend name of the equilibria with their stability. */
+  readonly equilibriumLegend: (stable: boolean) => string;
+}
+
+/** Tropline's English wording. */
+export const DEFAULT_TROPLINE_STRINGS: TroplineStrings = {
+  showTable: 'Show the numbers as a table',
+  hideTable: 'Hide the table',
+  exportLabel: 'Download',
+  exportPng: 'Image (PNG)',
+  exportSvg: 'Drawing (SVG)',
+  exportCsv: 'Table (CSV)',
+  computing: 'Computing…',
+  cancel: 'Cancel',
+  cancelled: 'The computation was cancelled.',
+  jobProgress: (percent) => `${percent} done`,
+  retryAfter: (when) => `You can try again after ${when}.`,
+  empty: 'Nothing to show yet.',
+  timeAxis: (unit) => `time (${unit})`,
+  pastHorizon: 'Past the predictability horizon',
+  observed: (level) => `${level} (monitoring)`,
+  band: (level) => `${level}, 5–95 % of runs`,
+  regimeName: {
+    equilibrium: 'Settles',
+    cycle: 'Cycles',
+    chaotic: 'Irregular (chaotic)',
+    collapse: 'A level dies out',
+  },
+  regimeSentence: {
+    equilibrium: 'In the long run every level settles to a steady value.',
+    cycle: 'In the long run the levels rise and fall in a repeating cycle.',
+    chaotic:
+      'In the long run the levels rise and fall irregularly: small differences grow, so ' +
+      'projections lose meaning past the predictability horizon.',
+    collapse: 'In the long run at least one level falls below its quasi-extinction threshold.',
+  },
+  stable: 'attracts nearby states',
+  unstable: 'does not attract',
+  regimeHeading: 'Long-run behaviour',
+  exponentLabel: 'Largest Lyapunov exponent',
+  horizonLabel: 'Predictability horizon',
+  notLimited: 'not limited by chaos',
+  periodLabel: 'Cycle period',
+  equilibriaHeading: 'Equilibria',
+  cautionsLabel: 'How to read this projection',
+  resetToPublished: 'Reset to the published values',
+  parametersHeading: 'Model parameters',
+  tooLow: (min, unit) => `Must be at least ${min}${unit ? ' ' + unit : ''}.`,
+  tooHigh: (max, unit) => `Must be at most ${max}${unit ? ' ' + unit : ''}.`,
+  notANumber: 'Enter a number.',
+  fixedByPublisher: 'Fixed by the publisher',
+  comparisonHeading: 'How the scenarios differ',
+  smallMultiples: 'One chart per scenario',
+  overlay: 'All on one chart',
+  metric: {
+    atHorizon: 'At the horizon',
+    windowMean: 'Mean over the final window',
+    minimum: 'Lowest value',
+    thresholdCrossing: 'First below threshold',
+  },
+  never: 'never',
+  currentValue: 'Current value',
+  transient: 'Transient (early)',
+  longRun: 'Long run',
+  nullcline: (level) => `${level} unchanging (nullcline)`,
+  equilibriumLegend: (stable) => (stable ? 'Equilibrium, stable (●)' : 'Equilibrium, unstable (○)'),
+};
+
+/** The strings in use; `provideTropline({ strings })` overrides any of them. */
+export const TROPLINE_STRINGS = new InjectionToken<TroplineStrings>('TROPLINE_STRINGS', {
+  providedIn: 'root',
+  factory: () => DEFAULT_TROPLINE_STRINGS,
+});
