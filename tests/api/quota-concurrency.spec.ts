@@ -49,7 +49,8 @@ describe('quota admission across processes sharing one database file', () => {
           headers: { authorization: `Bearer ${key}`, 'content-type': 'application/json' },
           body: JSON.stringify(body),
         });
-        const headers = Object.fromEntries(res.headers.entries());
+        const headers: Record<string, string> = {};
+        res.headers.forEach((value, name) => (headers[name] = value));
         const json = (await res.json()) as Record<string, unknown>;
         const problems = contract.check('POST', '/api/v1/projections', res.status, headers, json);
         return { status: res.status, headers, json, problems };
