@@ -1,3 +1,4 @@
+import { loadavg } from 'node:os';
 import { pathToFileURL } from 'node:url';
 import { Solver } from 'odex';
 import { compileChain } from '../../shared/model/chain-kernel';
@@ -34,6 +35,8 @@ export async function run(): Promise<void> {
     }),
   );
   console.log('analyses: b1 sweep, 100 values 2.0..6.2, transient 5000, window 5000, rtol 1e-8');
+  // The machine's cores are shared: parallel speed-up only shows when they are free.
+  console.log(`  load average at start: ${loadavg()[0]!.toFixed(2)} on 2 cores`);
   const odex = time(() => odexSweep(sweep));
   const inProcess = time(() => runSweepRange(sweep, 0, sweep.steps));
   const pools = [1, 2].map((size) => createAnalysisPool({ size }));
@@ -88,6 +91,7 @@ export async function run(): Promise<void> {
     report('pool, 1 worker', onEnsemble[0]!, onEnsemble[0]!);
     report('pool, 2 workers', onEnsemble[1]!, onEnsemble[0]!);
     console.log(`  parallel speed-up: ${(onEnsemble[0]! / onEnsemble[1]!).toFixed(2)}x`);
+    console.log(`  load average at end: ${loadavg()[0]!.toFixed(2)}`);
   } finally {
     await Promise.all(pools.map((p) => p.close()));
   }

@@ -40,6 +40,7 @@ export const regimeResponseSchema = z.object({
   spectrum: z.object({ values: z.array(z.number()), standardErrors: z.array(z.number()) }),
   meanDivergence: z.number(),
   collapsedLevels: z.array(z.string()).optional(),
+  regimeNote: z.string().optional(),
   diagnostics: z.object({ steps: z.number(), rhsEvaluations: z.number() }),
 });
 

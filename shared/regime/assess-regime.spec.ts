@@ -94,6 +94,15 @@ describe('regimes of the Hastings & Powell (1991) chain', () => {
     }
   });
 
+  // A short window leaves the exponent's error wide; the irregular maxima still tell chaos from
+  // a cycle, and the answer says the evidence is weaker.
+  it('calls a short-window chaotic run chaotic, with a note', () => {
+    const r = assessRegime(benchmarkChain(3), BENCHMARK_INITIAL, { transient: 3000, window: 1000 });
+    expect(r.regime).toBe('chaotic');
+    expect(r.lyapunovExponent.value).toBeLessThan(3 * r.lyapunovExponent.standardError);
+    expect(r.regimeNote).toMatch(/longer window/);
+  });
+
   // A top predator whose mortality exceeds its largest possible gain a2/b2 = 0.05 cannot persist
   // (common practice: the invasion condition of the Holling type II predator).
   it('reports collapse of a predator that cannot persist', () => {

@@ -52,6 +52,8 @@ export interface RegimeReport {
   readonly meanDivergence: number;
   /** Ids of the levels below their quasi-extinction threshold (collapse only). */
   readonly collapsedLevels?: string[];
+  /** When the verdict rests on weaker evidence, why (see classifyRegime). */
+  readonly regimeNote?: string;
   /** Integrator counters. */
   readonly diagnostics: { readonly steps: number; readonly rhsEvaluations: number };
 }
@@ -110,6 +112,7 @@ export function assessKernel(
     ...(horizon !== undefined
       ? { predictabilityHorizon: horizon }
       : { predictabilityNote: NOT_LIMITED_BY_CHAOS }),
+    ...(verdict.note ? { regimeNote: verdict.note } : {}),
     spectrum: { values: run.exponents, standardErrors: run.standardErrors },
     meanDivergence: run.meanDivergence,
     ...(verdict.collapsedLevels

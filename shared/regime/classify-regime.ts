@@ -30,7 +30,13 @@ export interface RegimeVerdict {
   readonly maximaPerPeriod?: number;
   /** Indices of the levels below their quasi-extinction threshold (collapse only). */
   readonly collapsedLevels?: number[];
+  /** Why the verdict rests on weaker evidence than the exponent alone, when it does. */
+  readonly note?: string;
 }
+
+/** Note given when irregular maxima decide a regime the exponent's error leaves open. */
+export const IRREGULAR_NOTE =
+  'irregular maxima with a positive exponent not yet beyond its error; a longer window settles it';
 
 /**
  * Classifies a run by these rules, in order:
@@ -38,8 +44,10 @@ export interface RegimeVerdict {
  * 2. `equilibrium` if every level has settled (relative spread below `settledSpread`) or the
  *    largest exponent is negative beyond max(zScore·SE, zeroBand);
  * 3. `chaotic` if the largest exponent is positive beyond max(zScore·SE, zeroBand);
- * 4. `cycle` otherwise (exponent zero within its error), with the period from the recurrence of
- *    the observed level's successive maxima.
+ * 4. otherwise the exponent is zero within its error: `cycle` when the observed level's
+ *    successive maxima recur (the period from that recurrence); when they do not recur and the
+ *    exponent's estimate is positive, `chaotic` with a note that the window was short; else
+ *    `cycle` without a period (a very long period, or a torus, which the four regimes fold in).
  */
 export function classifyRegime(run: LyapunovResult, rules: RegimeRules): RegimeVerdict {
   const n = run.windowMin.length;
@@ -64,9 +72,9 @@ export function classifyRegime(run: LyapunovResult, rules: RegimeRules): RegimeV
   if (settled || lambda < -margin) return { regime: 'equilibrium' };
   if (lambda > margin) return { regime: 'chaotic' };
   const p = periodFromMaxima(run.maximaTimes, run.maximaValues, rules.periodTolerance ?? 1e-4);
-  return p === undefined
-    ? { regime: 'cycle' }
-    : { regime: 'cycle', period: p.period, maximaPerPeriod: p.maximaPerPeriod };
+  if (p !== undefined)
+    return { regime: 'cycle', period: p.period, maximaPerPeriod: p.maximaPerPeriod };
+  return lambda > 0 ? { regime: 'chaotic', note: IRREGULAR_NOTE } : { regime: 'cycle' };
 }
 
 /** Text given instead of a horizon when the regime does not limit predictability. */

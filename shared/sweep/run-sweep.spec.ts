@@ -109,6 +109,25 @@ describe('sweeps along b1 of the Hastings & Powell (1991) chain', () => {
     expect(() => runSweepRange(req, 1, 3)).toThrow(RangeError);
   });
 
+  // Benettin classification per point: b1 = 3 is chaotic (Hastings & Powell 1991), b1 = 2.2 a
+  // cycle whose exponent is zero within its error (Benettin et al. 1980).
+  it('classifies each value by its Lyapunov exponent when asked', () => {
+    const req = request({
+      from: 2.2 / 5,
+      to: 3 / 5,
+      steps: 2,
+      regimeMethod: 'lyapunov',
+      window: 5000,
+    });
+    const [cycle, chaos] = runSweepRange(req, 0, 2).points;
+    expect(cycle!.regime).toBe('cycle');
+    expect(chaos!.regime).toBe('chaotic');
+    expect(chaos!.lyapunovExponent!.value).toBeGreaterThan(
+      3 * chaos!.lyapunovExponent!.standardError,
+    );
+    expect(distinct(cycle!.maxima, 1e-5)).toHaveLength(1);
+  });
+
   it('spaces values evenly and ends exactly on `to`', () => {
     expect(sweepValues(2, 6.2, 100)[99]).toBe(6.2);
     expect(sweepValues(0, 1, 5)).toEqual([0, 0.25, 0.5, 0.75, 1]);
