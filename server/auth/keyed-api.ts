@@ -2,6 +2,8 @@ import { availableParallelism } from 'node:os';
 import { Router } from 'express';
 import type { Knex } from 'knex';
 import { KeysService } from '../keys/keys-service';
+import { jobsRoutes } from '../jobs/jobs-routes';
+import { JobsService } from '../jobs/jobs-service';
 import { keysRoutes } from '../keys/keys-routes';
 import { ProjectionPool } from '../projections/projection-pool';
 import {
@@ -25,6 +27,7 @@ export interface KeyedApi {
   readonly router: Router;
   readonly keys: KeysService;
   readonly quotas: QuotasService;
+  readonly jobs: JobsService;
   /** Stops background work (job runner, pool). */
   close(): Promise<void>;
 }
@@ -52,11 +55,19 @@ export function keyedApi(
   router.use(
     projectionsRoutes(quotas, cache, projectionPool, { ...COMPUTE_LIMITS, ...limits }, requireKey),
   );
+  const jobs = new JobsService(db, quotas, now, {
+    concurrency: workerThreads(),
+    perTenantActive: 4,
+    maxQueued: 100,
+  });
+  router.use(jobsRoutes(jobs, quotas, requireKey));
   return {
     router,
     keys,
     quotas,
+    jobs,
     close: async () => {
+      await jobs.close();
       await projectionPool.close();
     },
   };
