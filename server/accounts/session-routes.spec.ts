@@ -68,7 +68,10 @@ describe('/session', () => {
       .post('/api/v1/session')
       .send({ email: analyst.email, password: analyst.password })
       .expect(200);
-    const after = cookiePair([].concat(again.headers['set-cookie']), 'tropline.sid')!;
+    const after = cookiePair(
+      ([] as string[]).concat(again.headers['set-cookie'] ?? []),
+      'tropline.sid',
+    )!;
     expect(after).not.toBe(before);
     await request(t.app).get('/api/v1/session').set('Cookie', before).expect(401);
     const now = await request(t.app).get('/api/v1/session').set('Cookie', after).expect(200);

@@ -25,6 +25,7 @@ export class Mailer {
   readonly catcher: MailCatcher | undefined;
   readonly outbox: OutboxRepository;
   private readonly worker: OutboxWorker;
+  private readonly watcher: NoticeWatcher;
   private transporter: Transporter | undefined;
 
   constructor(
@@ -39,6 +40,7 @@ export class Mailer {
         : undefined;
     this.outbox = new OutboxRepository(db);
     const watcher = new NoticeWatcher(db, now, `${config.publicUrl}/console`);
+    this.watcher = watcher;
     const host = new URL(config.publicUrl).hostname;
     this.worker = new OutboxWorker(
       this.outbox,
@@ -52,6 +54,7 @@ export class Mailer {
   /** Starts the catcher (if any) and, outside tests, the polling worker. */
   async start(): Promise<void> {
     await this.catcher?.start();
+    await this.watcher.prime();
     if (this.options.poll ?? this.config.nodeEnv !== 'test') this.worker.start(POLL_MS);
   }
 

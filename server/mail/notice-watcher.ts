@@ -32,6 +32,15 @@ export class NoticeWatcher {
     this.outbox = new OutboxRepository(db);
   }
 
+  /** Starts the key-notice cursor at the end of the trail, so past events are never mailed. */
+  async prime(): Promise<void> {
+    await this.db.transaction(async (trx) => {
+      if (await trx('mail_cursors').where({ name: 'key-notices' }).first()) return;
+      const last = await trx('audit_events').max({ id: 'id' }).first();
+      await trx('mail_cursors').insert({ name: 'key-notices', last_id: Number(last?.id ?? 0) });
+    });
+  }
+
   /** One scan of both sources. */
   async run(): Promise<void> {
     await this.keyNotices();
@@ -41,12 +50,7 @@ export class NoticeWatcher {
   private async keyNotices(): Promise<void> {
     await this.db.transaction(async (trx) => {
       const cursor = await trx('mail_cursors').where({ name: 'key-notices' }).first();
-      if (!cursor) {
-        // First run: notices start from now, the past is not mailed.
-        const last = await trx('audit_events').max({ id: 'id' }).first();
-        await trx('mail_cursors').insert({ name: 'key-notices', last_id: Number(last?.id ?? 0) });
-        return;
-      }
+      if (!cursor) return; // not primed yet (start() primes it)
       const events = await trx('audit_events')
         .where('id', '>', cursor.last_id)
         .whereIn('action', Object.keys(KEY_ACTIONS))

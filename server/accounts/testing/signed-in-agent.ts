@@ -38,7 +38,10 @@ export interface SignedInAgent {
   readonly agent: ReturnType<typeof request.agent>;
   readonly csrf: string;
   /** The sign-in answer's body. */
-  readonly session: Record<string, unknown>;
+  readonly session: { user: { id: string; email: string }; tenants: unknown[] } & Record<
+    string,
+    unknown
+  >;
   /** The `Set-Cookie` of the sign-in. */
   readonly cookies: string[];
 }

@@ -1,0 +1,129 @@
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import {
+  clockedApp,
+  demoUser,
+  signInDemo,
+  type ClockedApp,
+  type SignedInAgent,
+} from './testing/signed-in-agent';
+
+describe('the audit trail', () => {
+  let t: ClockedApp;
+  let owner: SignedInAgent;
+  let operator: SignedInAgent;
+  beforeAll(async () => {
+    t = await clockedApp();
+    owner = await signInDemo(t.app, 'owner');
+    operator = await signInDemo(t.app, 'operator');
+  });
+  afterAll(() => t.close());
+
+  const all = () => t.app.locals.tropline.db('audit_events').orderBy('id');
+
+  /** Runs `act` and returns the events it wrote. */
+  async function eventsOf(act: () => Promise<unknown>) {
+    const before = (await all()).length;
+    await act();
+    return (await all()).slice(before);
+  }
+
+  const send = (a: SignedInAgent, method: 'post' | 'patch' | 'put' | 'delete', path: string) =>
+    a.agent[method](`/api/v1${path}`).set('X-CSRF-Token', a.csrf);
+
+  it('writes exactly one event for each security-relevant action', async () => {
+    const viewer = demoUser('viewer');
+    const cases: [string, () => Promise<unknown>][] = [
+      ['session.sign-in', () => signInDemo(t.app, 'analyst')],
+      [
+        'session.sign-in-failed',
+        () =>
+          request(t.app)
+            .post('/api/v1/session')
+            .send({ email: viewer.email, password: 'wrong-password-here' })
+            .expect(401),
+      ],
+      [
+        'member.invite',
+        () =>
+          send(owner, 'post', '/invitations')
+            .send({ email: 'one.event@larchmere.example', role: 'viewer' })
+            .expect(201),
+      ],
+      ['quota.set', () => send(operator, 'put', '/tenants/larchmere/plan').send({}).expect(200)],
+    ];
+    for (const [action, act] of cases) {
+      const written = await eventsOf(act);
+      expect(written.map((e) => e.action)).toEqual([action]);
+      // The quotas service records no address (it is not handed the request).
+      if (action !== 'quota.set') expect(written[0].address).toMatch(/127\.0\.0\.1|::1/);
+    }
+
+    const members = await owner.agent.get('/api/v1/members').expect(200);
+    const viewerId = members.body.members.find((m: { email: string }) => m.email === viewer.email)
+      .userId as string;
+    const changed = await eventsOf(() =>
+      send(owner, 'patch', `/members/${viewerId}`).send({ role: 'analyst' }).expect(200),
+    );
+    expect(changed.map((e) => [e.action, JSON.parse(e.detail)])).toEqual([
+      ['member.role-change', { from: 'viewer', to: 'analyst' }],
+    ]);
+    const removed = await eventsOf(() => send(owner, 'delete', `/members/${viewerId}`).expect(204));
+    expect(removed.map((e) => e.action)).toEqual(['member.remove']);
+
+    let keyId = '';
+    const issued = await eventsOf(async () => {
+      const res = await send(owner, 'post', '/console/keys').send({ kind: 'server' }).expect(201);
+      keyId = res.body.key.id;
+    });
+    expect(issued.map((e) => [e.action, e.actor])).toEqual([
+      ['key.issue', `user:${owner.session.user.id}`],
+    ]);
+    const rotated = await eventsOf(() =>
+      send(owner, 'post', `/console/keys/${keyId}/rotate`).send({}).expect(201),
+    );
+    // The keys service also records the successor's issue; the rotation itself is one event.
+    expect(rotated.filter((e) => e.action === 'key.rotate')).toHaveLength(1);
+    const revoked = await eventsOf(() =>
+      send(owner, 'delete', `/console/keys/${keyId}`).expect(204),
+    );
+    expect(revoked.map((e) => e.action)).toEqual(['key.revoke']);
+  });
+
+  it('lets admins read the trail, filtered and paged, with members’ sign-ins', async () => {
+    const admin = await signInDemo(t.app, 'admin');
+    const page1 = await admin.agent
+      .get('/api/v1/audit-events')
+      .query({ action: 'session.sign-in', limit: 2 })
+      .expect(200);
+    expect(page1.body.events).toHaveLength(2);
+    expect(page1.body.events.map((e: { action: string }) => e.action)).toEqual([
+      'session.sign-in',
+      'session.sign-in',
+    ]);
+    expect(page1.body.next).toBe(page1.body.events[1].id);
+    const page2 = await admin.agent
+      .get('/api/v1/audit-events')
+      .query({ action: 'session.sign-in', limit: 2, before: page1.body.next })
+      .expect(200);
+    expect(page2.body.events[0].id).toBeLessThan(page1.body.next);
+    // The operator signed in too, but is no member: not part of this tenant's trail.
+    const actors = [...page1.body.events, ...page2.body.events].map((e) => e.actor);
+    expect(actors).not.toContain(`user:${operator.session.user.id}`);
+    const bad = await admin.agent.get('/api/v1/audit-events').query({ limit: 0 }).expect(400);
+    expect(bad.body.errors[0].pointer).toBe('/limit');
+  });
+
+  it('cannot be changed by any route', async () => {
+    const before = await all();
+    const id = before[0].id;
+    for (const method of ['post', 'put', 'patch', 'delete'] as const) {
+      for (const path of ['/audit-events', `/audit-events/${id}`]) {
+        const res = await send(owner, method, path).send({ action: 'nothing.happened' });
+        expect(res.status).toBe(405);
+        expect(res.headers.allow).toBe('GET');
+      }
+    }
+    expect(await all()).toEqual(before);
+  });
+});
