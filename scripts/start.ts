@@ -20,6 +20,8 @@ try {
   const running = await serve(config);
   const base = `http://localhost:${running.port}`;
   const keys = (running.app.locals.tropline as { demoKeys?: Record<string, string> }).demoKeys;
+  const signIns = running.app.locals.tropline.demoSignIns;
+  const mailbox = running.app.locals.tropline.accounts.mailer.catcher;
   const storybook = existsSync(resolve(ROOT, config.distDir, 'storybook'))
     ? `${base}/storybook/`
     : '(not built: npm run storybook:build)';
@@ -37,6 +39,20 @@ try {
             '',
             'Demo keys (development only; also in demo-keys.json beside the database):',
             ...Object.entries(keys).map(([name, key]) => `  ${name.padEnd(12)} ${key}`),
+          ]
+        : []),
+      ...(signIns
+        ? [
+            '',
+            'Demo sign-ins (development only):',
+            ...signIns.map((u) => `  ${u.role.padEnd(9)} ${u.email.padEnd(36)} ${u.password}`),
+          ]
+        : []),
+      ...(mailbox
+        ? [
+            '',
+            `Mail goes to the local catcher (SMTP 127.0.0.1:${mailbox.port}); read it at ` +
+              `${base}/api/v1/dev/mailbox`,
           ]
         : []),
       '',
