@@ -96,8 +96,8 @@ export const ROSENZWEIG_MACARTHUR: ChainPreset = Object.freeze({
  * (r = 2 week⁻¹, K = 40 g C m⁻², e₁ = 0.5, e₂ = 0.25): chaotic.
  */
 export const LAKE_DEMO: ChainPreset = Object.freeze({
-  id: 'lake-orrin-demo',
-  title: 'Lake Orrin plankton chain (invented)',
+  id: 'brackenlow-mere-demo',
+  title: 'Brackenlow Mere plankton chain (invented)',
   description:
     'Invented lake: green algae, Daphnia, juvenile yellow perch. In real units, but its groups are ' +
     'exactly the Hastings–Powell benchmark at b1 = 3, so it is chaotic.',
@@ -140,8 +140,8 @@ export const LAKE_DEMO: ChainPreset = Object.freeze({
 
 /** An invented upland in real units; wolves with a type III (prey-switching) response settle it. */
 export const UPLAND_DEMO: ChainPreset = Object.freeze({
-  id: 'ardle-moor-demo',
-  title: 'Ardle Moor browsing chain (invented)',
+  id: 'hobcairn-moor-demo',
+  title: 'Hobcairn Moor browsing chain (invented)',
   description:
     'Invented upland: heather, red deer, grey wolves with a type III response. Settles to a stable ' +
     'equilibrium through damped oscillations.',
