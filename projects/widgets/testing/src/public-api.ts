@@ -5,6 +5,9 @@ export {
   FakeTroplineClient,
   provideFakeTroplineClient,
   provideTroplineTesting,
+  type AnalysisSteps,
+  type FakeAnalyses,
+  type FakeRequests,
   type FakeTroplineClientOptions,
 } from './fake-tropline-client';
 export { TrajectoryChartHarness } from './trajectory-chart-harness';

@@ -71,6 +71,20 @@ export interface TroplineStrings {
   readonly tooHigh: (max: string, unit: string) => string;
   /** Message under an empty or non-numeric field. */
   readonly notANumber: string;
+  /** Ecological name of each model parameter, by its field name. */
+  readonly parameterLabel: Readonly<Record<string, string>>;
+  /** Role of level `index` in a chain of `count` levels. */
+  readonly levelRole: (index: number, count: number) => string;
+  /** A rate's unit. */
+  readonly perTime: (timeUnit: string) => string;
+  /** An attack rate's unit. */
+  readonly attackUnit: (preyUnit: string, timeUnit: string) => string;
+  /** A conversion efficiency's unit. */
+  readonly efficiencyUnit: (unit: string, preyUnit: string) => string;
+  /** A harvest quota's or stocking amount's unit. */
+  readonly amountUnit: (unit: string, timeUnit: string) => string;
+  /** Hint read with a focused chart. */
+  readonly zoomKeys: string;
   /** Note beside a value the public may not change. */
   readonly fixedByPublisher: string;
   /** Heading of the comparison metrics table. */
@@ -146,6 +160,33 @@ export const DEFAULT_TROPLINE_STRINGS: TroplineStrings = {
   tooLow: (min, unit) => `Must be at least ${min}${unit ? ' ' + unit : ''}.`,
   tooHigh: (max, unit) => `Must be at most ${max}${unit ? ' ' + unit : ''}.`,
   notANumber: 'Enter a number.',
+  parameterLabel: {
+    growthRate: 'Growth rate r',
+    carryingCapacity: 'Carrying capacity K',
+    attackRate: 'Attack rate a',
+    handlingTime: 'Handling time h',
+    efficiency: 'Conversion efficiency e',
+    mortality: 'Mortality m',
+    'harvest.rate': 'Harvest effort F',
+    'harvest.amount': 'Harvest quota H',
+    'stocking.amount': 'Stocking',
+  },
+  levelRole: (index, count) =>
+    index === 0
+      ? 'producer'
+      : index === count - 1
+        ? count > 2
+          ? 'top predator'
+          : 'consumer'
+        : index === 1
+          ? 'grazer'
+          : 'predator',
+  perTime: (t) => `per ${t}`,
+  attackUnit: (prey, t) => `per (${prey}) per ${t}`,
+  efficiencyUnit: (unit, prey) => `${unit} per ${prey}`,
+  amountUnit: (unit, t) => `${unit} per ${t}`,
+  zoomKeys:
+    'Keys: plus and minus zoom the time axis, left and right arrows move along it, zero shows all.',
   fixedByPublisher: 'Fixed by the publisher',
   comparisonHeading: 'How the scenarios differ',
   smallMultiples: 'One chart per scenario',

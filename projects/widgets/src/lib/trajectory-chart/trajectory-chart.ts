@@ -44,7 +44,7 @@ let nextId = 0;
 export class TrajectoryChart {
   private readonly host = inject<ElementRef<HTMLElement>>(ElementRef).nativeElement;
   private readonly options = inject(TROPLINE_OPTIONS);
-  private readonly strings = inject(TROPLINE_STRINGS);
+  protected readonly strings = inject(TROPLINE_STRINGS);
   private readonly palette = injectChartPalette();
 
   /** The trajectory to draw; while undefined a skeleton holds its place. */

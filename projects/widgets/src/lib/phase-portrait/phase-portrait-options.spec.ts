@@ -1,0 +1,103 @@
+import { findEquilibria, project, ROSENZWEIG_MACARTHUR } from '@tropline/core';
+import type { TrajectoryData } from '../trajectory-chart/trajectory-chart-options';
+import {
+  describePhasePortrait,
+  phasePortraitOptions,
+  phasePortraitTable,
+  twoLevelNullclines,
+} from './phase-portrait-options';
+
+const { model, initial } = ROSENZWEIG_MACARTHUR;
+const run = project({ model, initial, horizon: 50, samples: 101 });
+const data: TrajectoryData = {
+  times: run.times,
+  timeUnit: model.timeUnit,
+  series: model.levels.map((l) => ({
+    id: l.id,
+    name: l.name,
+    unit: l.unit,
+    values: run.series[l.id]!,
+  })),
+};
+const [x, y] = model.levels.map((l) => l.id) as [string, string];
+const equilibria = findEquilibria(model);
+
+interface SeriesLike {
+  id?: string;
+  name: string;
+  data: unknown[];
+  itemStyle?: { color: string };
+}
+
+describe('twoLevelNullclines', () => {
+  it('crosses the interior equilibrium the engine finds', () => {
+    const lines = twoLevelNullclines(model, 2000)!;
+    const interior = equilibria.find((e) => e.kind === 'interior')!;
+    expect(lines.consumer).toBeCloseTo(interior.state[x]!, 6);
+    // The producer nullcline passes through the interior equilibrium too (to grid resolution).
+    const nearest = lines.producer.reduce((best, pt) =>
+      Math.abs(pt[0] - lines.consumer!) < Math.abs(best[0] - lines.consumer!) ? pt : best,
+    );
+    expect(Math.abs(nearest[1] - interior.state[y]!)).toBeLessThan(0.01 * interior.state[y]!);
+  });
+
+  it('is undefined for three levels or with harvest', () => {
+    expect(
+      twoLevelNullclines({ ...model, harvest: [{ level: y, kind: 'effort', rate: 0.1 }] }),
+    ).toBeUndefined();
+  });
+});
+
+describe('phasePortraitOptions', () => {
+  const settings = {
+    x,
+    y,
+    transientEnd: 10,
+    equilibria,
+    nullclines: twoLevelNullclines(model),
+    colors: ['#111', '#222'],
+    textColor: '#000',
+    surface: '#fff',
+    locale: 'en',
+  };
+
+  it('splits the trajectory at the end of the transient, sharing the point there', () => {
+    const option = phasePortraitOptions(data, settings) as { series: SeriesLike[] };
+    const transient = option.series.find((s) => s.id === 'transient')!;
+    const longRun = option.series.find((s) => s.id === 'long-run')!;
+    expect(transient.data.length + longRun.data.length).toBe(data.times.length + 1);
+    expect(transient.data.at(-1)).toEqual(longRun.data[0]);
+  });
+
+  it('marks stable equilibria filled and unstable ones hollow, named in the legend', () => {
+    const option = phasePortraitOptions(data, settings) as { series: SeriesLike[] };
+    const stable = option.series.find((s) => s.name.includes('stable (●)'))!;
+    const unstable = option.series.find((s) => s.name.includes('unstable (○)'))!;
+    expect(stable.itemStyle!.color).toBe('#000');
+    expect(unstable.itemStyle!.color).toBe('#fff');
+    const feasible = equilibria.filter((e) => e.feasible);
+    expect(stable.data.length + unstable.data.length).toBe(feasible.length);
+  });
+
+  it('draws both nullclines of the two-level chain', () => {
+    const option = phasePortraitOptions(data, settings) as { series: SeriesLike[] };
+    expect(option.series.map((s) => s.id)).toContain('producer-nullcline');
+    expect(option.series.map((s) => s.id)).toContain('consumer-nullcline');
+  });
+});
+
+describe('describePhasePortrait and phasePortraitTable', () => {
+  it('names the axes, the faded transient and the equilibria', () => {
+    const text = describePhasePortrait(data, { x, y, equilibria, locale: 'en', transientEnd: 10 });
+    expect(text).toContain(
+      `Phase portrait of ${model.levels[1]!.name} against ${model.levels[0]!.name}`,
+    );
+    expect(text).toMatch(/feasible equilibria are marked, \d of them stable/);
+  });
+
+  it('lists time and both levels', () => {
+    const table = phasePortraitTable(data, x, y);
+    expect(table.columns).toHaveLength(3);
+    expect(table.rows).toHaveLength(data.times.length);
+  });
+});

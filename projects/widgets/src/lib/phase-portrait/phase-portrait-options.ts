@@ -1,0 +1,219 @@
+import type { ChainModel, ConsumerLevel, Equilibrium, ProducerLevel } from '@tropline/core';
+import type { EChartsCoreOption } from 'echarts/core';
+import { DEFAULT_TROPLINE_STRINGS, type TroplineStrings } from '../api/tropline-strings';
+import type { ChartTable } from '../chart-figure/chart-export';
+import type { TrajectoryData } from '../trajectory-chart/trajectory-chart-options';
+import { formatUnit } from '../trajectory-chart/trajectory-chart-format';
+
+/** Nullclines of a two-level chain: where each level's rate of change is zero. */
+export interface Nullclines {
+  /** Producer unchanging: consumer value along the producer axis, `[N, P]` pairs. */
+  readonly producer: readonly (readonly [number, number])[];
+  /** Consumer unchanging: the producer value N* (a vertical line), if the consumer can persist. */
+  readonly consumer?: number;
+}
+
+/**
+ * Interior nullclines of a two-level chain without harvest or stocking (Rosenzweig–MacArthur,
+ * type II or III): N' = 0 on P = r(1 − N/K)(1 + a h Nᵏ)/(a Nᵏ⁻¹) and P' = 0 on
+ * Nᵏ = m / (a (e − m h)), k = 1 for type II, 2 for type III. Undefined for other models.
+ */
+export function twoLevelNullclines(model: ChainModel, points = 120): Nullclines | undefined {
+  if (model.levels.length !== 2 || model.harvest?.length || model.stocking?.length) return;
+  const [producer, consumer] = model.levels as unknown as [ProducerLevel, ConsumerLevel];
+  const { growthRate: r, carryingCapacity: K } = producer;
+  const { attackRate: a, handlingTime: h, efficiency: e, mortality: m } = consumer;
+  const k = consumer.response === 'type3' ? 2 : 1;
+  const curve: [number, number][] = [];
+  for (let i = 1; i <= points; i++) {
+    const N = (K * i) / points;
+    curve.push([N, (r * (1 - N / K) * (1 + a * h * N ** k)) / (a * N ** (k - 1))]);
+  }
+  const denominator = a * (e - m * h);
+  const star = denominator > 0 ? (m / denominator) ** (1 / k) : undefined;
+  return { producer: curve, ...(star !== undefined && star < K ? { consumer: star } : {}) };
+}
+
+/** What the phase portrait draws. */
+export interface PhasePortraitSettings {
+  /** Level id on the horizontal axis. */
+  readonly x: string;
+  /** Level id on the vertical axis. */
+  readonly y: string;
+  /** Time up to which the trajectory counts as transient (drawn faded). */
+  readonly transientEnd: number;
+  /** Equilibria to mark (only feasible ones are drawn). */
+  readonly equilibria: readonly Equilibrium[];
+  /** Nullclines, when defined for the model and the axes are its two levels. */
+  readonly nullclines?: Nullclines;
+  /** Colours: trajectory, nullclines. */
+  readonly colors: readonly string[];
+  /** Text colour. */
+  readonly textColor: string;
+  /** Surface colour (fill of hollow markers). */
+  readonly surface: string;
+  /** BCP 47 locale. */
+  readonly locale: string;
+  /** Whether to animate. */
+  readonly animation?: boolean;
+  /** The wording in use. */
+  readonly strings?: TroplineStrings;
+}
+
+function level(data: TrajectoryData, id: string) {
+  const s = data.series.find((l) => l.id === id);
+  if (!s) throw new RangeError(`no level "${id}" in the trajectory`);
+  return s;
+}
+
+/** A paragraph describing the portrait. */
+export function describePhasePortrait(
+  data: TrajectoryData,
+  settings: Pick<PhasePortraitSettings, 'x' | 'y' | 'equilibria' | 'locale' | 'transientEnd'>,
+): string {
+  const fmt = new Intl.NumberFormat(settings.locale, { maximumSignificantDigits: 3 });
+  const xs = level(data, settings.x);
+  const ys = level(data, settings.y);
+  const feasible = settings.equilibria.filter((e) => e.feasible);
+  const stable = feasible.filter((e) => e.stable).length;
+  return (
+    `Phase portrait of ${ys.name} against ${xs.name}. The first ` +
+    `${fmt.format(settings.transientEnd)} ${data.timeUnit}s (the transient) are drawn faded. ` +
+    `${feasible.length} feasible equilibria are marked, ${stable} of them stable (filled).`
+  );
+}
+
+/** The portrait's points as a table. */
+export function phasePortraitTable(data: TrajectoryData, x: string, y: string): ChartTable {
+  const xs = level(data, x);
+  const ys = level(data, y);
+  return {
+    caption: `${ys.name} against ${xs.name} over time`,
+    columns: [
+      `time (${data.timeUnit})`,
+      `${xs.name} (${formatUnit(xs.unit)})`,
+      `${ys.name} (${formatUnit(ys.unit)})`,
+    ],
+    rows: data.times.map((t, k) => [t, xs.values[k] ?? null, ys.values[k] ?? null]),
+  };
+}
+
+/**
+ * Builds the ECharts option of a phase portrait: the trajectory in the plane of two levels with
+ * the transient faded, equilibria marked filled (stable) or hollow (unstable), and the two
+ * nullclines of a two-level chain where defined.
+ */
+export function phasePortraitOptions(
+  data: TrajectoryData,
+  settings: PhasePortraitSettings,
+): EChartsCoreOption {
+  const strings = settings.strings ?? DEFAULT_TROPLINE_STRINGS;
+  const fmt = new Intl.NumberFormat(settings.locale, { maximumSignificantDigits: 4 });
+  const xs = level(data, settings.x);
+  const ys = level(data, settings.y);
+  const text = settings.textColor;
+  const cut = Math.max(
+    1,
+    data.times.findIndex((t) => t >= settings.transientEnd),
+  );
+  const pairs = data.times.map((_, k) => [xs.values[k]!, ys.values[k]!]);
+  const line = settings.colors[0] ?? '#1565c0';
+  const nullColor = settings.colors[1] ?? '#b0561d';
+  const feasible = settings.equilibria.filter((e) => e.feasible);
+  const marks = (stable: boolean) => ({
+    name: strings.equilibriumLegend(stable),
+    type: 'scatter',
+    symbol: 'circle',
+    symbolSize: 12,
+    z: 5,
+    itemStyle: stable
+      ? { color: text, borderColor: text }
+      : { color: settings.surface, borderColor: text, borderWidth: 2 },
+    data: feasible
+      .filter((e) => e.stable === stable)
+      .map((e) => ({ value: [e.state[settings.x], e.state[settings.y]], name: e.classification })),
+  });
+  const nullclines = settings.nullclines;
+  const xMax = Math.max(...pairs.map((p) => p[0]!), ...feasible.map((e) => e.state[settings.x]!));
+  const yMax = Math.max(...pairs.map((p) => p[1]!), ...feasible.map((e) => e.state[settings.y]!));
+  return {
+    animation: settings.animation ?? false,
+    aria: {
+      enabled: true,
+      label: { description: describePhasePortrait(data, settings) },
+      decal: { show: true },
+    },
+    grid: { left: 72, right: 24, top: 56, bottom: 56 },
+    legend: { top: 0, type: 'scroll', textStyle: { color: text } },
+    tooltip: { trigger: 'item', valueFormatter: (v: number) => fmt.format(v) },
+    xAxis: {
+      type: 'value',
+      name: `${xs.name} (${formatUnit(xs.unit)})`,
+      nameLocation: 'middle',
+      nameGap: 30,
+      nameTextStyle: { color: text },
+      axisLabel: { color: text, formatter: (v: number) => fmt.format(v) },
+      min: 0,
+      max: xMax * 1.05,
+    },
+    yAxis: {
+      type: 'value',
+      name: `${ys.name} (${formatUnit(ys.unit)})`,
+      nameTextStyle: { color: text },
+      axisLabel: { color: text, formatter: (v: number) => fmt.format(v) },
+      min: 0,
+      max: yMax * 1.05,
+    },
+    series: [
+      {
+        id: 'transient',
+        name: strings.transient,
+        type: 'line',
+        showSymbol: false,
+        color: line,
+        lineStyle: { width: 1.5, opacity: 0.3, type: [4, 3] },
+        data: pairs.slice(0, cut + 1),
+      },
+      {
+        id: 'long-run',
+        name: strings.longRun,
+        type: 'line',
+        showSymbol: false,
+        color: line,
+        lineStyle: { width: 2 },
+        data: pairs.slice(cut),
+      },
+      ...(nullclines
+        ? [
+            {
+              id: 'producer-nullcline',
+              name: strings.nullcline(xs.name),
+              type: 'line',
+              showSymbol: false,
+              color: nullColor,
+              lineStyle: { width: 1.5, type: [8, 4] },
+              data: nullclines.producer.filter(([, p]) => p <= yMax * 1.05),
+            },
+            ...(nullclines.consumer !== undefined
+              ? [
+                  {
+                    id: 'consumer-nullcline',
+                    name: strings.nullcline(ys.name),
+                    type: 'line',
+                    showSymbol: false,
+                    color: nullColor,
+                    lineStyle: { width: 1.5, type: [2, 3] },
+                    data: [
+                      [nullclines.consumer, 0],
+                      [nullclines.consumer, yMax * 1.05],
+                    ],
+                  },
+                ]
+              : []),
+          ]
+        : []),
+      marks(true),
+      marks(false),
+    ],
+  };
+}
