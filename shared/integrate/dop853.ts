@@ -97,8 +97,8 @@ export class Dop853 {
   }
 
   /**
-   * Monomial coefficients (8 entries) of component i's interpolant in θ = (t - tOld)/(tNew - tOld),
-   * for exact derivatives of the dense output.
+   * Monomial coefficients (8 entries) of component i's interpolant in
+   * θ = (t - tOld)/(tNew - tOld), for exact derivatives of the dense output.
    */
   denseMonomials(i: number, out: Float64Array): void {
     this.ensureDense();
