@@ -553,3 +553,17 @@ export type {
   /** One action of the matrix. */
   Action,
 } from './access/role-matrix';
+
+// ── Analyses: work estimates for quotas (analyses work) ─────────────────────────────────────
+export {
+  /** Weighted time units of a regime assessment. */
+  regimeWork,
+} from './regime/assess-regime';
+export {
+  /** Weighted time units of an ensemble. */
+  ensembleWork,
+} from './ensemble/run-ensemble-members';
+export {
+  /** Weighted time units of a comparison. */
+  comparisonWork,
+} from './compare/compare-scenarios';

@@ -28,11 +28,16 @@ export function ensembleTimes(horizon: number, samples: number): number[] {
   );
 }
 
+/** Weighted time units an ensemble integrates (see ANALYSIS_LIMITS). */
+export function ensembleWork(req: EnsembleRequest): number {
+  return req.members * req.horizon;
+}
+
 /** Throws AnalysisBoundsError when the ensemble is too large; call before any work. */
 export function assertEnsembleBounds(req: EnsembleRequest): void {
   assertBound('members', '/members', req.members, L.maxMembers);
   assertBound('samples', '/samples', req.samples, L.maxEnsembleSamples);
-  assertBound('work', '/members', req.members * req.horizon, L.maxWork);
+  assertBound('work', '/members', ensembleWork(req), L.maxWork);
 }
 
 /** Member m's model and start: draws parameters, then initial states, from its own stream. */

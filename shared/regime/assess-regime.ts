@@ -69,6 +69,12 @@ export class AnalysisRunError extends Error {
   }
 }
 
+/** Weighted time units of a regime assessment (one tangent vector per exponent asked). */
+export function regimeWork(options: RegimeOptions): number {
+  const span = (options.transient ?? 5000) + (options.window ?? 5000);
+  return span * (1 + 2 * (options.exponents ?? 1));
+}
+
 /** Quasi-extinction thresholds in level order from overrides by id and the default fraction. */
 export function extinctionThresholds(
   model: ChainModel,
