@@ -126,6 +126,27 @@ async function main(): Promise<void> {
     connections: 50,
     duration: 10,
   });
+  // Server-side overhead from Server-Timing: what the stack adds beyond the engine, without
+  // the loopback network or the scheduler's delays on a shared machine.
+  let overhead = 0;
+  let computeInServer = 0;
+  const samples = 300;
+  for (let k = 0; k < samples; k++) {
+    const res = await fetch(`${server.url}/api/v1/projections`, {
+      method: 'POST',
+      headers,
+      body: JSON.stringify(body(++i)),
+    });
+    await res.text();
+    const t = Object.fromEntries(
+      (res.headers.get('server-timing') ?? '').split(',').map((p) => {
+        const [name, dur] = p.trim().split(';dur=');
+        return [name, Number(dur)];
+      }),
+    );
+    overhead += (t.total! - t.compute!) / samples;
+    computeInServer += t.compute! / samples;
+  }
   server.stop();
   const perRequestMs = (r: autocannon.Result) => (r.duration * 1000) / r.requests.total;
   const fmt = (x: number) => x.toFixed(3);
@@ -138,6 +159,10 @@ async function main(): Promise<void> {
     `API, 1 connection, uncached: mean latency ${fmt(serial.latency.mean)} ms, ` +
       `${fmt(perRequestMs(serial))} ms/request → adds ${fmt(serial.latency.mean - base.computeMs)} ms ` +
       `(ratio ${fmt(serial.latency.mean / base.computeMs)}×)`,
+  );
+  console.log(
+    `server-side, uncached: compute ${fmt(computeInServer)} ms, the rest of the stack ` +
+      `(auth, admission, validation, JSON) adds ${fmt(overhead)} ms per request`,
   );
   console.log(
     `API, 50 connections, uncached: ${parallel.requests.average.toFixed(0)} req/s, ` +

@@ -12,6 +12,7 @@ import {
   type ComputeLimits,
 } from '../projections/projections-routes';
 import { ResultCache } from '../projections/result-cache';
+import { stampStart } from '../projections/sync-compute';
 import { QuotasService } from '../quotas/quotas-service';
 import { usageRoutes } from '../quotas/usage-routes';
 import { keyCorsPreflight } from './key-cors';
@@ -45,6 +46,7 @@ export function keyedApi(
   const quotas = new QuotasService(db, now);
   const requireKey = keyGuard(keys, now);
   const router = Router();
+  router.use(stampStart);
   router.use(keyCorsPreflight(keys, now));
   router.use(keysRoutes(keys, quotas, requireKey));
   router.use(usageRoutes(quotas, requireKey));

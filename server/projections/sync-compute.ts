@@ -1,4 +1,4 @@
-import type { RequestHandler } from 'express';
+import type { RequestHandler, Response } from 'express';
 import type { ValidationResult } from '@tropline/core';
 import { principalOf } from '../auth/key-principal';
 import { validationProblem } from '../http/problem';
@@ -19,6 +19,17 @@ export interface SyncEndpoint<T> {
   /** Runs the computation (in-thread when small, on the worker pool when not). */
   compute(request: T): unknown;
 }
+
+/** Milliseconds since the keyed router saw the request (stamped by `stampStart`). */
+function elapsed(res: Response): number {
+  return performance.now() - ((res.locals.startedAt as number | undefined) ?? performance.now());
+}
+
+/** Middleware that stamps when the request reached the keyed API (for `Server-Timing`). */
+export const stampStart: RequestHandler = (_req, res, next) => {
+  res.locals.startedAt = performance.now();
+  next();
+};
 
 /** Header that says whether an answer came from the cache. */
 export const CACHE_HEADER = 'Tropline-Cache';
@@ -47,18 +58,29 @@ export function syncCompute<T>(
     const hit = cache.get(hash);
     if (hit !== undefined) {
       await quotas.admit(principal, endpoint.name, COSTS.cached, res, true);
+      res.set('Server-Timing', `compute;dur=0, total;dur=${elapsed(res).toFixed(3)}`);
       res.set(CACHE_HEADER, 'hit').type('application/json').send(hit);
       return;
     }
     const ticket = await quotas.admit(principal, endpoint.name, cost, res);
     let body: string;
+    const started = performance.now();
+    let computeMs: number;
     try {
-      body = JSON.stringify(await endpoint.compute(checked.value));
+      const result = await endpoint.compute(checked.value);
+      computeMs = performance.now() - started;
+      body = JSON.stringify(result);
     } catch (err) {
       await quotas.refund(ticket);
       throw engineProblem(err); // rethrows what is not the engine's typed error (a 500)
     }
     cache.set(hash, body);
+    // Server-side time (auth, admission, validation, compute, serialisation) for integrators
+    // and the benchmark; the network and the client are not in it.
+    res.set(
+      'Server-Timing',
+      `compute;dur=${computeMs.toFixed(3)}, total;dur=${elapsed(res).toFixed(3)}`,
+    );
     res.set(CACHE_HEADER, 'miss').type('application/json').send(body);
   };
 }
