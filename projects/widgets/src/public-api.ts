@@ -58,3 +58,53 @@ export { ChartFigure } from './lib/chart-figure/chart-figure';
 export { tableCsv, type ChartTable } from './lib/chart-figure/chart-export';
 export { type ChartPalette, readPalette } from './lib/chart-figure/chart-palette';
 export { zoomWindow, type ZoomKey, type ZoomWindow } from './lib/chart-figure/zoom-keys';
+export { ParameterForm } from './lib/parameter-form/parameter-form';
+export {
+  parameterGroups,
+  fieldProblem,
+  applyParameters,
+  type ParameterBounds,
+  type ParameterField,
+  type ParameterGroup,
+} from './lib/parameter-form/parameter-form-schema';
+export { PhasePortrait } from './lib/phase-portrait/phase-portrait';
+export {
+  phasePortraitOptions,
+  phasePortraitTable,
+  describePhasePortrait,
+  twoLevelNullclines,
+  type Nullclines,
+  type PhasePortraitSettings,
+} from './lib/phase-portrait/phase-portrait-options';
+export { BifurcationChart, sweepAxes } from './lib/bifurcation-chart/bifurcation-chart';
+export {
+  bifurcationChartOptions,
+  bifurcationTable,
+  describeBifurcation,
+  REGIME_SYMBOLS,
+  type BifurcationAxes,
+  type BifurcationSettings,
+} from './lib/bifurcation-chart/bifurcation-chart-options';
+export { RegimeSummary } from './lib/regime-summary/regime-summary';
+export {
+  regimeSummaryText,
+  type RegimeSummaryText,
+  type SummaryEquilibrium,
+  type SummaryFact,
+} from './lib/regime-summary/regime-summary-text';
+export { ScenarioComparison } from './lib/scenario-comparison/scenario-comparison';
+export {
+  comparisonChartOptions,
+  comparisonTable,
+  describeComparison,
+  type ComparisonChartSettings,
+  type ComparisonLayout,
+} from './lib/scenario-comparison/scenario-comparison-options';
+export {
+  comparisonRows,
+  NOTABLE_CHANGE,
+  type ComparisonCell,
+  type ComparisonRow,
+} from './lib/scenario-comparison/scenario-comparison-table';
+export { JobProgress } from './lib/job-progress/job-progress';
+export { jobState, type JobState } from './lib/job-progress/job-state';

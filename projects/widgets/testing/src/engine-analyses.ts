@@ -8,13 +8,11 @@ import { validateSweepRequest } from '@tropline/core/analyses-contract/sweep-con
 import { runScenario, thresholdVector } from '@tropline/core/compare/compare-scenarios';
 import { assessRegime } from '@tropline/core/regime/assess-regime';
 import { runSweepRange } from '@tropline/core/sweep/run-sweep';
-import { ModelValidationError } from '@tropline/core';
+import { ModelValidationError, type ValidationResult } from '@tropline/core';
 import type { ComparisonResult, ScenarioOutcome, SweepPoint } from '@tropline/widgets';
 import type { AnalysisSteps, FakeAnalyses } from './fake-tropline-client';
 
-function validated<T>(
-  result: { ok: true; value: T } | { ok: false; errors: { pointer: string; message: string }[] },
-): T {
+function validated<T>(result: ValidationResult<T>): T {
   if (!result.ok) throw new ModelValidationError(result.errors);
   return result.value;
 }

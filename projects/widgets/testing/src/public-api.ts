@@ -10,4 +10,12 @@ export {
   type FakeRequests,
   type FakeTroplineClientOptions,
 } from './fake-tropline-client';
+export { TroplineChartHarness } from './chart-figure-harness';
 export { TrajectoryChartHarness } from './trajectory-chart-harness';
+export {
+  BifurcationChartHarness,
+  ParameterFormHarness,
+  PhasePortraitHarness,
+  RegimeSummaryHarness,
+  ScenarioComparisonHarness,
+} from './widget-harnesses';

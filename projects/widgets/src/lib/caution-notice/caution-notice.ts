@@ -1,5 +1,6 @@
-import { ChangeDetectionStrategy, Component, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject, input } from '@angular/core';
 import { PROJECTION_CAUTIONS } from '@tropline/core';
+import { TROPLINE_STRINGS } from '../api/tropline-strings';
 
 /** The cautions every projection carries, shown by default wherever projections are shown. */
 export const DEFAULT_CAUTIONS: readonly string[] = PROJECTION_CAUTIONS;
@@ -8,7 +9,7 @@ export const DEFAULT_CAUTIONS: readonly string[] = PROJECTION_CAUTIONS;
 @Component({
   selector: 'tropline-caution-notice',
   template: `
-    <aside class="tropline-caution-notice" aria-label="How to read this projection">
+    <aside class="tropline-caution-notice" [attr.aria-label]="strings.cautionsLabel">
       <span class="material-symbols-outlined" aria-hidden="true">info</span>
       <ul>
         @for (caution of cautions(); track caution) {
@@ -36,6 +37,9 @@ export const DEFAULT_CAUTIONS: readonly string[] = PROJECTION_CAUTIONS;
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class CautionNotice {
+  /** The wording in use. */
+  protected readonly strings = inject(TROPLINE_STRINGS);
+
   /** The cautions to list; the API sends them with every projection. */
   readonly cautions = input<readonly string[]>(DEFAULT_CAUTIONS);
 }

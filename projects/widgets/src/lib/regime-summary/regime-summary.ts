@@ -35,6 +35,8 @@ export class RegimeSummary {
   readonly equilibria = input<readonly Equilibrium[]>([]);
   /** Why the assessment is not available, when it failed. */
   readonly error = input<TroplineApiError | undefined>(undefined);
+  /** Whether the cautions are shown here (a composite showing them once may turn this off). */
+  readonly showCautions = input<boolean>(true);
   /** The cautions to show with it. */
   readonly cautions = input<readonly string[]>(DEFAULT_CAUTIONS);
 

@@ -1,0 +1,166 @@
+import type { EChartsCoreOption } from 'echarts/core';
+import type { Regime, SweepResult } from '../api/analysis-types';
+import { DEFAULT_TROPLINE_STRINGS, type TroplineStrings } from '../api/tropline-strings';
+import type { ChartTable } from '../chart-figure/chart-export';
+
+/** Marker shape per regime, so the legend does not rely on colour. */
+export const REGIME_SYMBOLS: Readonly<Record<Regime, string>> = {
+  equilibrium: 'circle',
+  cycle: 'triangle',
+  chaotic: 'diamond',
+  collapse: 'rect',
+};
+
+/** Shape names as the legend writes them. */
+const SHAPE_WORDS: Readonly<Record<Regime, string>> = {
+  equilibrium: '●',
+  cycle: '▲',
+  chaotic: '◆',
+  collapse: '■',
+};
+
+/** Labels of the two axes. */
+export interface BifurcationAxes {
+  /** Swept parameter, e.g. "Handling time h of Water flea (week)". */
+  readonly parameter: string;
+  /** Observed level with its unit, e.g. "Juvenile yellow perch (g C m⁻²)". */
+  readonly observed: string;
+}
+
+/** Settings of {@link bifurcationChartOptions}. */
+export interface BifurcationSettings {
+  /** Axis labels. */
+  readonly axes: BifurcationAxes;
+  /** The parameter's current value, marked with a vertical line. */
+  readonly current?: number;
+  /** Colour per regime. */
+  readonly colors: Readonly<Record<Regime, string>>;
+  /** Text colour. */
+  readonly textColor: string;
+  /** BCP 47 locale. */
+  readonly locale: string;
+  /** The wording in use. */
+  readonly strings?: TroplineStrings;
+}
+
+const REGIMES: readonly Regime[] = ['equilibrium', 'cycle', 'chaotic', 'collapse'];
+
+/** A paragraph describing the diagram: the range and where each regime occurs. */
+export function describeBifurcation(
+  result: SweepResult,
+  axes: BifurcationAxes,
+  locale: string,
+  strings: TroplineStrings = DEFAULT_TROPLINE_STRINGS,
+): string {
+  const fmt = new Intl.NumberFormat(locale, { maximumSignificantDigits: 3 });
+  const values = result.points.map((p) => p.value);
+  const spans: string[] = [];
+  let start = 0;
+  for (let i = 1; i <= result.points.length; i++) {
+    const here = result.points[i]?.regime;
+    if (here !== result.points[start]!.regime) {
+      const from = result.points[start]!;
+      const to = result.points[i - 1]!;
+      spans.push(
+        `${strings.regimeName[from.regime].toLowerCase()} from ${fmt.format(from.value)} ` +
+          `to ${fmt.format(to.value)}`,
+      );
+      start = i;
+    }
+  }
+  return (
+    `Bifurcation diagram: the long-run maxima of ${axes.observed} for ${values.length} values ` +
+    `of ${axes.parameter} from ${fmt.format(Math.min(...values))} to ` +
+    `${fmt.format(Math.max(...values))}. Regimes: ${spans.join('; ')}.`
+  );
+}
+
+/** Every maximum as a table row: parameter value, regime, maximum. */
+export function bifurcationTable(
+  result: SweepResult,
+  axes: BifurcationAxes,
+  strings: TroplineStrings = DEFAULT_TROPLINE_STRINGS,
+): ChartTable {
+  return {
+    caption: `Long-run maxima of ${axes.observed} against ${axes.parameter}`,
+    columns: [axes.parameter, 'Regime', `Maxima of ${axes.observed}`],
+    rows: result.points.map((p) => [
+      p.value,
+      strings.regimeName[p.regime],
+      p.maxima.length ? p.maxima.map((m) => m.toPrecision(4)).join(' ') : '—',
+    ]),
+  };
+}
+
+/**
+ * Builds the ECharts option of a bifurcation diagram: one scatter series per regime (its own
+ * colour and marker shape, named with the shape in the legend) of every long-run maximum of the
+ * observed level against the swept value, and the current value marked.
+ */
+export function bifurcationChartOptions(
+  result: SweepResult,
+  settings: BifurcationSettings,
+): EChartsCoreOption {
+  const strings = settings.strings ?? DEFAULT_TROPLINE_STRINGS;
+  const fmt = new Intl.NumberFormat(settings.locale, { maximumSignificantDigits: 4 });
+  const text = settings.textColor;
+  const values = result.points.map((p) => p.value);
+  const present = REGIMES.filter((r) => result.points.some((p) => p.regime === r));
+  const series = present.map((regime, i) => ({
+    id: regime,
+    name: `${strings.regimeName[regime]} ${SHAPE_WORDS[regime]}`,
+    type: 'scatter',
+    symbol: REGIME_SYMBOLS[regime],
+    symbolSize: regime === 'chaotic' ? 4 : 6,
+    large: true,
+    color: settings.colors[regime],
+    data: result.points
+      .filter((p) => p.regime === regime)
+      .flatMap((p) => p.maxima.map((m) => [p.value, m])),
+    ...(i === 0 && settings.current !== undefined
+      ? {
+          markLine: {
+            silent: true,
+            symbol: 'none',
+            lineStyle: { color: text, type: 'solid', width: 1.5 },
+            label: {
+              color: text,
+              formatter: `${strings.currentValue}: ${fmt.format(settings.current)}`,
+            },
+            data: [{ xAxis: settings.current }],
+          },
+        }
+      : {}),
+  }));
+  return {
+    animation: false,
+    aria: {
+      enabled: true,
+      label: {
+        description: describeBifurcation(result, settings.axes, settings.locale, strings),
+      },
+      decal: { show: true },
+    },
+    grid: { left: 72, right: 32, top: 56, bottom: 56 },
+    legend: { top: 0, textStyle: { color: text } },
+    tooltip: { trigger: 'item', valueFormatter: (v: number) => fmt.format(v) },
+    xAxis: {
+      type: 'value',
+      name: settings.axes.parameter,
+      nameLocation: 'middle',
+      nameGap: 30,
+      nameTextStyle: { color: text },
+      axisLabel: { color: text, formatter: (v: number) => fmt.format(v) },
+      min: Math.min(...values),
+      max: Math.max(...values),
+    },
+    yAxis: {
+      type: 'value',
+      name: settings.axes.observed,
+      nameTextStyle: { color: text },
+      axisLabel: { color: text, formatter: (v: number) => fmt.format(v) },
+      scale: true,
+    },
+    series,
+  };
+}

@@ -1,0 +1,129 @@
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  inject,
+  input,
+  linkedSignal,
+  signal,
+} from '@angular/core';
+import { MatButtonToggle, MatButtonToggleGroup } from '@angular/material/button-toggle';
+import type { ChainModel } from '@tropline/core';
+import type { EChartsType } from 'echarts/core';
+import { NgxEchartsDirective } from 'ngx-echarts';
+import { Subject } from 'rxjs';
+import type { ComparisonRequest, ComparisonResult } from '../api/analysis-types';
+import { TroplineClient } from '../api/tropline-client';
+import { TROPLINE_OPTIONS } from '../api/tropline-options';
+import { TROPLINE_STRINGS } from '../api/tropline-strings';
+import { CautionNotice } from '../caution-notice/caution-notice';
+import { ChartFigure } from '../chart-figure/chart-figure';
+import { injectChartPalette } from '../chart-figure/chart-palette';
+import { JobProgress } from '../job-progress/job-progress';
+import { jobState } from '../job-progress/job-state';
+import {
+  type ComparisonLayout,
+  comparisonChartOptions,
+  comparisonTable,
+  describeComparison,
+} from './scenario-comparison-options';
+import { comparisonRows } from './scenario-comparison-table';
+
+let nextId = 0;
+
+/**
+ * A baseline and its management alternatives side by side: small multiples or an overlay of one
+ * level, and a table of the comparison metrics with each difference from the baseline written
+ * out and the large ones highlighted (bold and an arrow, not colour alone). Given a `request`
+ * it runs the comparison as a background job; given a `result` it only draws.
+ */
+@Component({
+  selector: 'tropline-scenario-comparison',
+  imports: [
+    NgxEchartsDirective,
+    ChartFigure,
+    JobProgress,
+    CautionNotice,
+    MatButtonToggle,
+    MatButtonToggleGroup,
+  ],
+  templateUrl: './scenario-comparison.html',
+  styleUrl: './scenario-comparison.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  host: { class: 'tropline-scenario-comparison' },
+})
+export class ScenarioComparison {
+  private readonly client = inject(TroplineClient);
+  private readonly options = inject(TROPLINE_OPTIONS);
+  /** The wording in use. */
+  protected readonly strings = inject(TROPLINE_STRINGS);
+  private readonly palette = injectChartPalette();
+  private readonly cancelled = new Subject<void>();
+
+  /** The baseline model (names and units). */
+  readonly model = input.required<ChainModel>();
+  /** The comparison to run as a job. */
+  readonly request = input<ComparisonRequest | undefined>(undefined);
+  /** A finished comparison to show (instead of a request). */
+  readonly result = input<ComparisonResult | undefined>(undefined);
+  /** Initial layout. */
+  readonly layout = input<ComparisonLayout>('multiples');
+
+  private readonly id = nextId++;
+  protected readonly summaryId = `tropline-comparison-summary-${this.id}`;
+  protected readonly levelSelectId = `tropline-comparison-level-${this.id}`;
+  protected readonly initOpts = { renderer: this.options.renderer };
+  protected readonly chart = signal<EChartsType | undefined>(undefined);
+  protected readonly shownLayout = linkedSignal(() => this.layout());
+  protected readonly level = linkedSignal(() => this.model().levels.at(-1)!.id);
+  protected readonly job = jobState(this.request, (r) => this.client.compare(r), this.cancelled);
+  protected readonly background = computed(() => this.palette().surface);
+
+  protected readonly shown = computed((): ComparisonResult | undefined => {
+    const job = this.job();
+    return this.result() ?? (job.kind === 'done' ? job.result : undefined);
+  });
+  protected readonly chartOptions = computed(() => {
+    const result = this.shown();
+    if (!result) return {};
+    const p = this.palette();
+    return comparisonChartOptions(this.model(), result, {
+      layout: this.shownLayout(),
+      level: this.level(),
+      colors: p.series,
+      textColor: p.text,
+      locale: this.options.locale,
+      strings: this.strings,
+    });
+  });
+  protected readonly summary = computed(() => {
+    const result = this.shown();
+    return result
+      ? describeComparison(this.model(), result, {
+          layout: this.shownLayout(),
+          level: this.level(),
+          locale: this.options.locale,
+        })
+      : this.strings.empty;
+  });
+  protected readonly table = computed(() => {
+    const result = this.shown();
+    return result
+      ? comparisonTable(this.model(), result, this.level())
+      : { caption: this.strings.empty, columns: [], rows: [] };
+  });
+  protected readonly rows = computed(() => {
+    const result = this.shown();
+    return result ? comparisonRows(this.model(), result, this.options.locale, this.strings) : [];
+  });
+  protected readonly names = computed(() => this.shown()?.scenarios.map((s) => s.name) ?? []);
+
+  /** Stops the running comparison. */
+  cancel(): void {
+    this.cancelled.next();
+  }
+
+  protected pickLevel(event: Event): void {
+    this.level.set((event.target as HTMLSelectElement).value);
+  }
+}

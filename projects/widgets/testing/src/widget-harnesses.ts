@@ -1,0 +1,146 @@
+import { ComponentHarness } from '@angular/cdk/testing';
+import { TroplineChartHarness } from './chart-figure-harness';
+
+/** Test harness for `<tropline-phase-portrait>`. */
+export class PhasePortraitHarness extends TroplineChartHarness {
+  /** The selector this harness matches. */
+  static hostSelector = 'tropline-phase-portrait';
+  private readonly selects = this.locatorForAll('select');
+  private readonly xOptions = this.locatorForAll('select:first-of-type option');
+  private readonly yOptions = this.locatorForAll('select:last-of-type option');
+
+  /** Chooses the levels on the two axes by id. */
+  async pickLevels(x: string, y: string): Promise<void> {
+    const [sx, sy] = await this.selects();
+    const values = async (options: Awaited<ReturnType<typeof this.xOptions>>) =>
+      Promise.all(options.map((o) => o.getProperty<string>('value')));
+    await sx!.selectOptions((await values(await this.xOptions())).indexOf(x));
+    await sy!.selectOptions((await values(await this.yOptions())).indexOf(y));
+  }
+}
+
+/** Test harness for `<tropline-bifurcation-chart>`. */
+export class BifurcationChartHarness extends TroplineChartHarness {
+  /** The selector this harness matches. */
+  static hostSelector = 'tropline-bifurcation-chart';
+  private readonly progress = this.locatorForOptional('tropline-job-progress');
+  private readonly cancelButton = this.locatorForOptional('tropline-job-progress button');
+  private readonly alert = this.locatorForOptional('[role="alert"]');
+
+  /** Whether the sweep is still running. */
+  async isRunning(): Promise<boolean> {
+    return (await this.progress()) !== null;
+  }
+
+  /** Cancels the running sweep. */
+  async cancel(): Promise<void> {
+    await (await this.cancelButton())?.click();
+  }
+
+  /** The error shown, if any. */
+  async getError(): Promise<string | null> {
+    return (await this.alert())?.text() ?? null;
+  }
+}
+
+/** Test harness for `<tropline-regime-summary>`. */
+export class RegimeSummaryHarness extends ComponentHarness {
+  /** The selector this harness matches. */
+  static hostSelector = 'tropline-regime-summary';
+  private readonly regime = this.locatorForOptional('.tropline-regime-summary__regime');
+  private readonly facts = this.locatorForAll('.tropline-regime-summary__facts > div');
+  private readonly equilibria = this.locatorForAll('.tropline-regime-summary__equilibria li');
+
+  /** The regime sentence, or null while computing. */
+  async getRegime(): Promise<string | null> {
+    return (await this.regime())?.text() ?? null;
+  }
+
+  /** Each fact as `label: value`. */
+  async getFacts(): Promise<Record<string, string>> {
+    const out: Record<string, string> = {};
+    for (const fact of await this.facts()) {
+      const [dt, dd] = await Promise.all([
+        fact.text({ exclude: 'dd' }),
+        fact.text({ exclude: 'dt' }),
+      ]);
+      out[dt.trim()] = dd.trim();
+    }
+    return out;
+  }
+
+  /** The equilibria as listed. */
+  async getEquilibria(): Promise<string[]> {
+    return Promise.all((await this.equilibria()).map((e) => e.text()));
+  }
+}
+
+/** Test harness for `<tropline-scenario-comparison>`. */
+export class ScenarioComparisonHarness extends TroplineChartHarness {
+  /** The selector this harness matches. */
+  static hostSelector = 'tropline-scenario-comparison';
+  private readonly notable = this.locatorForAll('.tropline-scenario-comparison__notable');
+  private readonly heads = this.locatorForAll('.tropline-scenario-comparison__metrics thead th');
+
+  /** Column headings of the metrics table. */
+  async getScenarioNames(): Promise<string[]> {
+    return (await Promise.all((await this.heads()).map((h) => h.text()))).slice(2);
+  }
+
+  /** Texts of the highlighted cells. */
+  async getNotableCells(): Promise<string[]> {
+    return Promise.all((await this.notable()).map((c) => c.text()));
+  }
+}
+
+/** Test harness for `<tropline-parameter-form>`. */
+export class ParameterFormHarness extends ComponentHarness {
+  /** The selector this harness matches. */
+  static hostSelector = 'tropline-parameter-form';
+  private readonly inputs = this.locatorForAll('input[type="number"]');
+  private readonly legends = this.locatorForAll('legend');
+  private readonly errors = this.locatorForAll('mat-error');
+  private readonly fixed = this.locatorForAll('.tropline-parameter-form__fixed');
+  private readonly resetButton = this.locatorFor('.tropline-parameter-form__actions button');
+
+  /** The group legends, producer first. */
+  async getGroups(): Promise<string[]> {
+    return Promise.all((await this.legends()).map((l) => l.text()));
+  }
+
+  /** Number of editable fields. */
+  async getEditableCount(): Promise<number> {
+    return (await this.inputs()).length;
+  }
+
+  /** Number of values shown as fixed by the publisher. */
+  async getFixedCount(): Promise<number> {
+    return (await this.fixed()).length;
+  }
+
+  /** Types a value into the numeric field whose label starts with `label`. */
+  async setValue(label: string, value: string): Promise<void> {
+    for (const input of await this.inputs()) {
+      const id = await input.getAttribute('id');
+      const host = this.documentRootLocatorFactory();
+      const labelEl = await host.locatorForOptional(`label[for="${id}"]`)();
+      if (labelEl && (await labelEl.text()).startsWith(label)) {
+        await input.clear();
+        await input.sendKeys(value);
+        await input.blur();
+        return;
+      }
+    }
+    throw new Error(`no field labelled "${label}"`);
+  }
+
+  /** Validation messages on screen. */
+  async getErrors(): Promise<string[]> {
+    return (await Promise.all((await this.errors()).map((e) => e.text()))).filter(Boolean);
+  }
+
+  /** Resets to the published values. */
+  async reset(): Promise<void> {
+    await (await this.resetButton()).click();
+  }
+}
