@@ -2,6 +2,9 @@ import { availableParallelism } from 'node:os';
 import { Router } from 'express';
 import type { Knex } from 'knex';
 import { KeysService } from '../keys/keys-service';
+import type { AnalysisPool } from '@tropline/core';
+import { createAnalysisPool } from '@tropline/core/node';
+import { analysesRoutes } from '../analyses/analyses-routes';
 import { jobsRoutes } from '../jobs/jobs-routes';
 import { JobsService } from '../jobs/jobs-service';
 import { keysRoutes } from '../keys/keys-routes';
@@ -62,6 +65,11 @@ export function keyedApi(
     perTenantActive: 4,
     maxQueued: 100,
   });
+  // The analysis pool's threads start on first use: most test apps never need them.
+  let analysisPool: AnalysisPool | undefined;
+  const pool = () => (analysisPool ??= createAnalysisPool({ size: workerThreads() }));
+  jobs.start();
+  router.use(analysesRoutes(jobs, quotas, cache, pool, requireKey));
   router.use(jobsRoutes(jobs, quotas, requireKey));
   return {
     router,
@@ -71,6 +79,7 @@ export function keyedApi(
     close: async () => {
       await jobs.close();
       await projectionPool.close();
+      await analysisPool?.close();
     },
   };
 }

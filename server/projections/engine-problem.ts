@@ -1,4 +1,10 @@
-import { IntegrationError, ModelValidationError, ParameterPointerError } from '@tropline/core';
+import {
+  AnalysisBoundsError,
+  AnalysisRunError,
+  IntegrationError,
+  ModelValidationError,
+  ParameterPointerError,
+} from '@tropline/core';
 import { ProblemError, validationProblem } from '../http/problem';
 
 const INTEGRATION_MESSAGES: Record<IntegrationError['code'], string> = {
@@ -19,6 +25,33 @@ export function engineProblem(err: unknown): ProblemError {
   if (err instanceof ModelValidationError) return validationProblem([...err.errors]);
   if (err instanceof ParameterPointerError) {
     return validationProblem([{ pointer: '/parameter', message: err.message }]);
+  }
+  if (err instanceof AnalysisBoundsError) {
+    return new ProblemError(
+      422,
+      'too-large',
+      'The request exceeds a bound',
+      `${err.pointer}: asks for ${err.requested} (${err.bound}); the most allowed is ${err.limit}.`,
+      {
+        errors: [{ pointer: err.pointer, message: `at most ${err.limit} (${err.bound})` }],
+        bound: err.bound,
+        limit: err.limit,
+      },
+    );
+  }
+  if (err instanceof AnalysisRunError) {
+    return new ProblemError(
+      422,
+      'integration-failed',
+      'The model could not be integrated',
+      `The analysis stopped: ${err.outcome}; shorten the spans or loosen the tolerance.`,
+      {
+        errors: [
+          { pointer: '/window', message: `the integration did not finish (${err.outcome})` },
+        ],
+        cause: err.outcome,
+      },
+    );
   }
   if (err instanceof IntegrationError) {
     const levelPointer =

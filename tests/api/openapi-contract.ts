@@ -102,8 +102,14 @@ export class OpenApiContract {
     for (const [name, header] of Object.entries(response.headers ?? {})) {
       const h = this.deref<OpenAPIV3_1.HeaderObject>(header);
       const value = headers[name.toLowerCase()];
-      const optional =
-        name === 'WWW-Authenticate' || name === 'Tropline-Cache' || name === 'Location';
+      // Headers sent only in some answers of a status (a replay, a cache verdict, a challenge).
+      const optional = [
+        'WWW-Authenticate',
+        'Tropline-Cache',
+        'Location',
+        'Idempotent-Replayed',
+        'Server-Timing',
+      ].includes(name);
       if (value === undefined) {
         if (!optional) problems.push(`${status}: header ${name} missing`);
         continue;

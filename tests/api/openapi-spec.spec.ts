@@ -78,6 +78,16 @@ const PAIRS: [keyof typeof core, string][] = [
   ['equilibriaRequestSchema', 'EquilibriaRequest'],
   ['equilibriumSchema', 'Equilibrium'],
   ['equilibriaResponseSchema', 'EquilibriaResponse'],
+  ['regimeRequestSchema', 'RegimeRequest'],
+  ['regimeResponseSchema', 'RegimeResponse'],
+  ['sweepRequestSchema', 'SweepRequest'],
+  ['sweepResultSchema', 'SweepResult'],
+  ['regimeMapRequestSchema', 'RegimeMapRequest'],
+  ['regimeMapResultSchema', 'RegimeMapResult'],
+  ['ensembleRequestSchema', 'EnsembleRequest'],
+  ['ensembleResultSchema', 'EnsembleResult'],
+  ['comparisonRequestSchema', 'ComparisonRequest'],
+  ['comparisonResultSchema', 'ComparisonResult'],
 ];
 
 describe('openapi/openapi.yaml', () => {
