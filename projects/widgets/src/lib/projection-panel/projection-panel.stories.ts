@@ -1,5 +1,12 @@
 import type { Meta, StoryObj } from '@storybook/angular';
 import { LAKE_DEMO, UPLAND_DEMO } from '@tropline/core';
+import {
+  darkMode,
+  narrow,
+  NOT_ACCEPTED,
+  QUOTA_REFUSED,
+  withClient,
+} from '../../../../../.storybook/story-states';
 import { ProjectionPanel } from './projection-panel';
 
 const meta: Meta<ProjectionPanel> = {
@@ -9,9 +16,10 @@ const meta: Meta<ProjectionPanel> = {
     docs: {
       description: {
         component:
-          'Projects a model through the Tropline API and draws the trajectory with the cautions. ' +
-          'Here the fake client from `@tropline/widgets/testing` computes in the page. In a host ' +
-          'app, `provideTropline({ apiUrl, apiKey })` points it at the API with a browser key.',
+          'The one-tag composite: parameter form, trajectory chart, phase portrait, regime ' +
+          'summary and cautions. Here the fake client from `@tropline/widgets/testing` computes ' +
+          'in the page. In a host app, `provideTropline({ apiUrl, apiKey })` points it at the ' +
+          'API with a browser key.',
       },
     },
   },
@@ -20,13 +28,34 @@ export default meta;
 
 type Story = StoryObj<ProjectionPanel>;
 
-/** The invented lake over four years. */
-export const InventedLake: Story = {
-  args: { model: LAKE_DEMO.model, initial: { ...LAKE_DEMO.initial }, horizon: 208, samples: 833 },
+const lake = {
+  model: LAKE_DEMO.model,
+  initial: { ...LAKE_DEMO.initial },
+  horizon: 208,
+  samples: 833,
 };
 
-/** The invented upland over sixty years, on a log scale. */
-export const InventedUplandLogScale: Story = {
+/** The invented lake over four years: chaotic, so the span past the horizon is faded. */
+export const ChaoticLakeWithHorizon: Story = { args: lake };
+
+/** As published: the public may change the nutrient load (as K) and perch mortality only. */
+export const PublishedBounds: Story = {
+  args: {
+    ...lake,
+    bounds: [
+      {
+        pointer: '/levels/0/carryingCapacity',
+        min: 20,
+        max: 60,
+        label: 'Nutrient load (as carrying capacity K)',
+      },
+      { pointer: '/levels/2/mortality', min: 0.001, max: 0.02 },
+    ],
+  },
+};
+
+/** The invented upland over sixty years, on a log scale (it settles). */
+export const SettlingUplandLogScale: Story = {
   args: {
     model: UPLAND_DEMO.model,
     initial: { ...UPLAND_DEMO.initial },
@@ -35,3 +64,24 @@ export const InventedUplandLogScale: Story = {
     logScale: true,
   },
 };
+
+/** Waiting for the service: skeletons hold the layout. */
+export const Loading: Story = { args: lake, decorators: [withClient({ neverAnswer: true })] };
+
+/** The service refused a value. */
+export const NotAccepted: Story = {
+  args: lake,
+  decorators: [withClient({ failWith: NOT_ACCEPTED })],
+};
+
+/** The tenant's allowance is used up: the reset time is shown. */
+export const QuotaRefused: Story = {
+  args: lake,
+  decorators: [withClient({ failWith: QUOTA_REFUSED })],
+};
+
+/** On a dark host page. */
+export const DarkMode: Story = { args: lake, decorators: [darkMode] };
+
+/** 320 px wide: everything stacks. */
+export const Narrow: Story = { args: lake, decorators: [narrow] };

@@ -1,5 +1,12 @@
 import type { Meta, StoryObj } from '@storybook/angular';
-import { HASTINGS_POWELL_BENCHMARK, LAKE_DEMO, project, UPLAND_DEMO } from '@tropline/core';
+import {
+  HASTINGS_POWELL_BENCHMARK,
+  LAKE_DEMO,
+  project,
+  UPLAND_DEMO,
+  withParameter,
+} from '@tropline/core';
+import { darkMode, narrow } from '../../../../../.storybook/story-states';
 import { TrajectoryChart } from './trajectory-chart';
 import type { TrajectoryData } from './trajectory-chart-options';
 
@@ -54,4 +61,60 @@ export const BenchmarkLogScaleWithHorizon: Story = {
     logScale: true,
     predictabilityHorizon: 600,
   },
+};
+
+/** Nothing to draw yet: the skeleton holds the chart's place. */
+export const Empty: Story = { args: { data: undefined } };
+
+/**
+ * The upland with a band from 40 runs whose wolf mortality is spread ±20 % (computed here with
+ * the engine), and invented survey counts of deer.
+ */
+export const UplandWithBandAndSurveys: Story = {
+  args: {
+    data: (() => {
+      const base = projected(UPLAND_DEMO, 40, 201);
+      const pointer = '/levels/2/mortality';
+      const m0 = UPLAND_DEMO.model.levels[2]!.mortality;
+      const runs = Array.from({ length: 40 }, (_, i) =>
+        project({
+          model: withParameter(UPLAND_DEMO.model, pointer, m0 * (0.8 + (0.4 * i) / 39)),
+          initial: UPLAND_DEMO.initial,
+          horizon: 40,
+          samples: 201,
+        }),
+      );
+      const deer = UPLAND_DEMO.model.levels[1]!.id;
+      const q = (id: string, p: number) =>
+        base.times.map((_, k) => {
+          const xs = runs.map((r) => r.series[id]![k]!).sort((a, b) => a - b);
+          return xs[Math.round(p * (xs.length - 1))]!;
+        });
+      return {
+        ...base,
+        bands: base.series.map((s) => ({ id: s.id, lower: q(s.id, 0.05), upper: q(s.id, 0.95) })),
+        observations: [
+          {
+            id: deer,
+            times: [0, 3, 7, 12, 18, 25, 31, 38],
+            values: base.series[1]!.values.filter((_, k) =>
+              [0, 15, 35, 60, 90, 125, 155, 190].includes(k),
+            ).map((v, i) => (i === 4 ? null : v * (1 + 0.08 * Math.sin(i * 2.3)))),
+          },
+        ],
+      };
+    })(),
+  },
+};
+
+/** The lake on a dark host page. */
+export const DarkMode: Story = {
+  args: { data: projected(LAKE_DEMO, 208), predictabilityHorizon: 120 },
+  decorators: [darkMode],
+};
+
+/** 320 px wide. */
+export const Narrow: Story = {
+  args: { data: projected(LAKE_DEMO, 208) },
+  decorators: [narrow],
 };
