@@ -77,6 +77,21 @@ export default tseslint.config(
     },
   },
   {
+    // Browser code never reaches the Node-only entry (piscina, worker_threads).
+    files: ['projects/**/*.ts'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          paths: [
+            { name: '@tropline/core/node', message: 'Node-only; browsers use @tropline/core.' },
+          ],
+          patterns: [{ group: ['**/shared/*', '**/shared'], message: "Import '@tropline/core'." }],
+        },
+      ],
+    },
+  },
+  {
     files: ['projects/**/*.ts'],
     extends: [...angular.configs.tsRecommended],
     processor: angular.processInlineTemplates,

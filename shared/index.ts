@@ -280,6 +280,30 @@ export type {
 
 // ── Analyses (appended by the analyses work; keep below this line) ──────────────────────────
 
+// ── Access: the role matrix (accounts work) ─────────────────────────────────────────────────
+export {
+  /** Roles a member holds in one tenant. */
+  TENANT_ROLES,
+  /** Every action the matrix governs. */
+  ACTIONS,
+  /** Which role may do what; the server enforces it, the console reads it. */
+  ROLE_MATRIX,
+  /** Whether a role may perform an action. */
+  can,
+  /** Whether a member with one role may grant or remove another. */
+  canAssignRole,
+  /** Whether a string names a tenant role. */
+  isTenantRole,
+} from './access/role-matrix';
+export type {
+  /** A role in a tenant. */
+  TenantRole,
+  /** A tenant role or the platform operator. */
+  Role,
+  /** One action of the matrix. */
+  Action,
+} from './access/role-matrix';
+
 // ── Analyses: regimes, sweeps, maps, ensembles, comparisons, pool (analyses work) ────────────
 export {
   /** Dormand–Prince 8(5,3) with order-7 dense output; allocation-free, for the long runs. */
@@ -443,10 +467,8 @@ export type {
   /** Per-level figures of one scenario. */
   LevelSummary,
 } from './compare/scenario-levels';
-export {
-  /** The piscina worker pool the server runs analyses on. */
-  createAnalysisPool,
-} from './pool/analysis-pool';
+// createAnalysisPool is Node-only: it lives in './node' (`@tropline/core/node`) so browser
+// bundles never reach piscina or Node built-ins. Its types stay here.
 export type {
   /** The pool: runSweep, runRegimeMap, runEnsemble, runComparison, runRegime, close. */
   AnalysisPool,
@@ -529,30 +551,6 @@ export type {
   /** A validated comparison request. */
   ComparisonRequest,
 } from './analyses-contract/comparison-contract';
-
-// ── Access: the role matrix (accounts work) ─────────────────────────────────────────────────
-export {
-  /** Roles a member holds in one tenant. */
-  TENANT_ROLES,
-  /** Every action the matrix governs. */
-  ACTIONS,
-  /** Which role may do what; the server enforces it, the console reads it. */
-  ROLE_MATRIX,
-  /** Whether a role may perform an action. */
-  can,
-  /** Whether a member with one role may grant or remove another. */
-  canAssignRole,
-  /** Whether a string names a tenant role. */
-  isTenantRole,
-} from './access/role-matrix';
-export type {
-  /** A role in a tenant. */
-  TenantRole,
-  /** A tenant role or the platform operator. */
-  Role,
-  /** One action of the matrix. */
-  Action,
-} from './access/role-matrix';
 
 // ── Analyses: work estimates for quotas (analyses work) ─────────────────────────────────────
 export {
