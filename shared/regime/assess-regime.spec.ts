@@ -6,6 +6,7 @@ import { withParameter } from '../model/parameter-pointer';
 import { assessRegime } from './assess-regime';
 import { predictabilityHorizon } from './classify-regime';
 import { lyapunovSpectrum } from '../lyapunov/lyapunov-spectrum';
+import { findEquilibria } from '../equilibria/find-equilibria';
 import { benchmarkChain, BENCHMARK_INITIAL } from '../../tests/reference/analyses-benchmark-chain';
 
 const close = (a: number, b: number, tol: number) =>
@@ -62,6 +63,13 @@ describe('regimes of the Hastings & Powell (1991) chain', () => {
     const top = Math.max(...re);
     expect(top).toBeLessThan(0);
     expect(Math.abs(r.lyapunovExponent.value - top)).toBeLessThan(
+      4 * r.lyapunovExponent.standardError + 1e-4,
+    );
+    // The same against the engine's closed-form interior equilibrium (exact, from the Jacobian).
+    const interior = findEquilibria(model).find((e) => e.kind === 'interior' && e.feasible)!;
+    expect(interior.stable).toBe(true);
+    expect(Math.abs(interior.eigenvalues[0]!.re - top)).toBeLessThan(1e-8);
+    expect(Math.abs(r.lyapunovExponent.value - interior.eigenvalues[0]!.re)).toBeLessThan(
       4 * r.lyapunovExponent.standardError + 1e-4,
     );
     // Sum of the spectrum = trace of J at the equilibrium (Liouville; the divergence identity).
