@@ -35,13 +35,18 @@ describe('bifurcationChartOptions', () => {
   }) as { series: SeriesLike[] };
 
   it('draws one series per regime present, each with its own shape named in the legend', () => {
-    expect(option.series.map((s) => s.id)).toEqual(['equilibrium', 'cycle', 'chaotic']);
-    expect(option.series.map((s) => s.symbol)).toEqual([
+    expect(option.series.map((s) => s.id)).toEqual([
+      'equilibrium',
+      'cycle',
+      'chaotic',
+      'current-value',
+    ]);
+    expect(option.series.slice(0, 3).map((s) => s.symbol)).toEqual([
       REGIME_SYMBOLS.equilibrium,
       REGIME_SYMBOLS.cycle,
       REGIME_SYMBOLS.chaotic,
     ]);
-    expect(option.series.map((s) => s.name)).toEqual([
+    expect(option.series.slice(0, 3).map((s) => s.name)).toEqual([
       'Settles ●',
       'Cycles ▲',
       'Irregular (chaotic) ◆',
@@ -59,7 +64,7 @@ describe('bifurcationChartOptions', () => {
   });
 
   it('marks the current value', () => {
-    expect(option.series[0]!.markLine!.data).toEqual([{ xAxis: 3 }]);
+    expect(option.series.at(-1)!.markLine!.data).toEqual([{ xAxis: 3 }]);
   });
 });
 

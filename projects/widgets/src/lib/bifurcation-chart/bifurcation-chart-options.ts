@@ -106,7 +106,7 @@ export function bifurcationChartOptions(
   const text = settings.textColor;
   const values = result.points.map((p) => p.value);
   const present = REGIMES.filter((r) => result.points.some((p) => p.regime === r));
-  const series = present.map((regime, i) => ({
+  const series: Record<string, unknown>[] = present.map((regime) => ({
     id: regime,
     name: `${strings.regimeName[regime]} ${SHAPE_WORDS[regime]}`,
     type: 'scatter',
@@ -117,21 +117,25 @@ export function bifurcationChartOptions(
     data: result.points
       .filter((p) => p.regime === regime)
       .flatMap((p) => p.maxima.map((m) => [p.value, m])),
-    ...(i === 0 && settings.current !== undefined
-      ? {
-          markLine: {
-            silent: true,
-            symbol: 'none',
-            lineStyle: { color: text, type: 'solid', width: 1.5 },
-            label: {
-              color: text,
-              formatter: `${strings.currentValue}: ${fmt.format(settings.current)}`,
-            },
-            data: [{ xAxis: settings.current }],
-          },
-        }
-      : {}),
   }));
+  if (settings.current !== undefined) {
+    // On its own empty series: scatter series drawn in `large` mode do not render mark lines.
+    series.push({
+      id: 'current-value',
+      type: 'line',
+      data: [],
+      markLine: {
+        silent: true,
+        symbol: 'none',
+        lineStyle: { color: text, type: 'solid', width: 1.5 },
+        label: {
+          color: text,
+          formatter: `${strings.currentValue}: ${fmt.format(settings.current)}`,
+        },
+        data: [{ xAxis: settings.current }],
+      },
+    });
+  }
   return {
     animation: false,
     aria: {

@@ -134,7 +134,6 @@ export function phasePortraitOptions(
       .map((e) => ({ value: [e.state[settings.x], e.state[settings.y]], name: e.classification })),
   });
   const nullclines = settings.nullclines;
-  const xMax = Math.max(...pairs.map((p) => p[0]!), ...feasible.map((e) => e.state[settings.x]!));
   const yMax = Math.max(...pairs.map((p) => p[1]!), ...feasible.map((e) => e.state[settings.y]!));
   return {
     animation: settings.animation ?? false,
@@ -154,7 +153,6 @@ export function phasePortraitOptions(
       nameTextStyle: { color: text },
       axisLabel: { color: text, formatter: (v: number) => fmt.format(v) },
       min: 0,
-      max: xMax * 1.05,
     },
     yAxis: {
       type: 'value',
@@ -162,7 +160,6 @@ export function phasePortraitOptions(
       nameTextStyle: { color: text },
       axisLabel: { color: text, formatter: (v: number) => fmt.format(v) },
       min: 0,
-      max: yMax * 1.05,
     },
     series: [
       {

@@ -35,8 +35,8 @@ const lake = {
   samples: 833,
 };
 
-/** The invented lake over four years: chaotic, so the span past the horizon is faded. */
-export const ChaoticLakeWithHorizon: Story = { args: lake };
+/** The invented lake over ten years: chaotic, so the span past its horizon is faded. */
+export const ChaoticLakeWithHorizon: Story = { args: { ...lake, horizon: 520, samples: 1041 } };
 
 /** As published: the public may change the nutrient load (as K) and perch mortality only. */
 export const PublishedBounds: Story = {

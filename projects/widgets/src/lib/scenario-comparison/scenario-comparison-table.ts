@@ -68,11 +68,7 @@ export function comparisonRows(
         }
         if (v === null || base === null) {
           const differs = (v === null) !== (base === null);
-          return {
-            text: write(s.levels[level.id]),
-            ...(differs ? { change: v === null ? strings.never : write(s.levels[level.id]) } : {}),
-            notable: differs,
-          };
+          return { text: write(s.levels[level.id]), notable: differs };
         }
         const rel = base === 0 ? (v === 0 ? 0 : Infinity) : (v - base) / Math.abs(base);
         return {

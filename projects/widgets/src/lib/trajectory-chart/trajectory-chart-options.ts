@@ -92,6 +92,12 @@ export function describeTrajectory(
       `and ends at ${fmt.format(last(s.values) ?? NaN)}`
     );
   });
+  const bands = data.bands?.length
+    ? ' Shaded bands show where 90 % of the uncertain runs lie (5th to 95th percentile).'
+    : '';
+  const observed = data.observations?.length
+    ? ` Monitoring values are marked as points for ${data.observations.length} level(s).`
+    : '';
   const horizon =
     predictabilityHorizon !== undefined && predictabilityHorizon < end
       ? ` The regime is chaotic: past ${fmt.format(predictabilityHorizon)} ${data.timeUnit}s ` +
@@ -99,7 +105,7 @@ export function describeTrajectory(
       : '';
   return (
     `Trajectory of ${data.series.length} food-chain levels over ${fmt.format(end)} ` +
-    `${data.timeUnit}s. ${parts.join('; ')}.${horizon}`
+    `${data.timeUnit}s. ${parts.join('; ')}.${bands}${observed}${horizon}`
   );
 }
 
@@ -172,7 +178,6 @@ export function trajectoryChartOptions(
         id: `${s.id}-past-horizon`,
         data: points.slice(cut),
         lineStyle: { ...base.lineStyle, opacity: 0.35 },
-        endLabel: { show: true, formatter: s.name, color: text, opacity: 0.7 },
         emphasis: { disabled: true },
       },
     ];
@@ -258,11 +263,17 @@ export function trajectoryChartOptions(
     textStyle: { fontFamily: settings.fontFamily ?? 'Roboto, sans-serif' },
     grid: {
       left: 64 + Math.floor((units.length - 1) / 2) * 56,
-      right: (units.length > 1 ? 72 : 24) + 96,
+      right: units.length > 1 ? 72 : 24,
       top: 56,
       bottom: zoom ? 88 : 56,
     },
-    legend: { top: 0, type: 'scroll', textStyle: { color: text } },
+    // Bands share their level's colour and are named in the summary, not the legend.
+    legend: {
+      top: 0,
+      type: 'scroll',
+      data: [...data.series.map((s) => s.name), ...observed.map((o) => o.name)],
+      textStyle: { color: text },
+    },
     tooltip: {
       trigger: 'axis',
       valueFormatter: (v: number | null) => (v === null ? '—' : fmt.format(v)),
