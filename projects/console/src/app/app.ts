@@ -1,38 +1,60 @@
-import { ChangeDetectionStrategy, Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject } from '@angular/core';
+import { MatButton } from '@angular/material/button';
+import { MatIcon } from '@angular/material/icon';
+import { MatListModule } from '@angular/material/list';
+import { MatMenuModule } from '@angular/material/menu';
 import { MatToolbar } from '@angular/material/toolbar';
-import { RouterOutlet } from '@angular/router';
+import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { ConsoleSession } from './session/console-session';
+import { DevMailboxProbe } from './session/dev-mailbox-probe';
+import { navFor, ROLE_LABELS } from './shell/console-nav';
 
-/** The console frame: Tropline's toolbar and the routed page. */
+/** The console frame: toolbar with tenant and account, the navigation, and the routed page. */
 @Component({
   selector: 'tc-root',
-  imports: [RouterOutlet, MatToolbar],
-  template: `
-    <mat-toolbar class="tc-toolbar">
-      <img src="favicon.svg" alt="" width="28" height="28" />
-      <span class="tc-toolbar__title">Tropline console</span>
-      <span class="tc-toolbar__spacer"></span>
-      <a class="tc-toolbar__link" href="/api/docs/">API reference</a>
-    </mat-toolbar>
-    <main class="tc-main"><router-outlet /></main>
-  `,
-  styles: `
-    .tc-toolbar {
-      gap: 12px;
-      background: var(--mat-sys-primary);
-      color: var(--mat-sys-on-primary);
-    }
-    .tc-toolbar__spacer {
-      flex: 1;
-    }
-    .tc-toolbar__link {
-      color: inherit;
-      font: var(--mat-sys-label-large);
-    }
-    .tc-main {
-      width: min(1100px, 100% - 32px);
-      margin: 24px auto;
-    }
-  `,
+  imports: [
+    RouterOutlet,
+    RouterLink,
+    RouterLinkActive,
+    MatToolbar,
+    MatButton,
+    MatIcon,
+    MatMenuModule,
+    MatListModule,
+  ],
+  templateUrl: './app.html',
+  styleUrl: './app.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class App {}
+export class App {
+  private readonly router = inject(Router);
+  private readonly mailbox = inject(DevMailboxProbe);
+  protected readonly session = inject(ConsoleSession);
+
+  protected readonly nav = computed(() => navFor(this.session.role(), this.mailbox.available()));
+  protected readonly roleLabel = computed(() => {
+    const role = this.session.role();
+    return role ? ROLE_LABELS[role].name : undefined;
+  });
+
+  constructor() {
+    // A session that ends while a page is open (expiry, sign-out elsewhere) leads to sign-in.
+    effect(() => {
+      const state = this.session.state();
+      if (state.kind === 'signed-out' && state.reason === 'expired') {
+        const next = this.router.url.startsWith('/sign-in') ? undefined : this.router.url;
+        void this.router.navigate(['/sign-in'], { queryParams: { next, ended: 1 } });
+      }
+    });
+  }
+
+  protected switchTenant(slug: string): void {
+    this.session.selectTenant(slug);
+    void this.router.navigateByUrl('/');
+  }
+
+  protected async signOut(everywhere: boolean): Promise<void> {
+    await (everywhere ? this.session.signOutEverywhere() : this.session.signOut());
+    await this.router.navigate(['/sign-in'], { queryParams: { out: everywhere ? 'all' : 1 } });
+  }
+}
