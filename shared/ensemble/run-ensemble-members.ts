@@ -2,6 +2,7 @@ import { levelScales } from '../model/chain-kernel';
 import { specialiseChain } from '../sweep/specialise-chain';
 import { initialVector } from '../model/initial-vector';
 import { withParameter } from '../model/parameter-pointer';
+import { ModelValidationError } from '../model/validation-issue';
 import type { ChainModel } from '../model/chain-model';
 import { Dop853 } from '../integrate/dop853';
 import { AnalysisRunError, extinctionThresholds } from '../regime/assess-regime';
@@ -47,14 +48,34 @@ export function drawMember(
 ): { model: ChainModel; y0: Float64Array } {
   const rng = memberGenerator(req.seed, m);
   let model = req.model;
-  for (const p of req.parameters) {
-    model = withParameter(model, p.pointer, sampleDistribution(p.distribution, rng));
-  }
+  req.parameters.forEach((p, i) => {
+    const at = `/parameters/${i}/distribution`;
+    const v = blame(at, m, () => sampleDistribution(p.distribution, rng));
+    model = blame(at, m, () => withParameter(model, p.pointer, v));
+  });
   const initial: Record<string, number> = { ...req.initial };
-  for (const s of req.initialStates) {
-    initial[s.level] = Math.max(0, sampleDistribution(s.distribution, rng));
-  }
+  req.initialStates.forEach((s, i) => {
+    const at = `/initialStates/${i}/distribution`;
+    initial[s.level] = Math.max(
+      0,
+      blame(at, m, () => sampleDistribution(s.distribution, rng)),
+    );
+  });
   return { model, y0: initialVector(model, initial) };
+}
+
+/**
+ * Runs a draw; a bad draw (a truncation that keeps too little, a value that makes the model
+ * invalid) becomes a ModelValidationError pointing at the distribution in the request body.
+ */
+function blame<T>(pointer: string, member: number, draw: () => T): T {
+  try {
+    return draw();
+  } catch (e) {
+    const inner = (e as { errors?: readonly { message: string }[] }).errors?.[0]?.message;
+    const message = `member ${member}: ${inner ?? (e as Error).message}`;
+    throw new ModelValidationError([{ pointer, message }]);
+  }
 }
 
 /**

@@ -9,6 +9,7 @@ import { runEnsembleMembers, ensembleTimes } from './run-ensemble-members';
 import { summariseEnsemble, quantileSorted } from './summarise-ensemble';
 import { memberGenerator } from './member-generator';
 import { sampleDistribution } from './distribution';
+import { ModelValidationError } from '../model/validation-issue';
 import { benchmarkChain, BENCHMARK_INITIAL } from '../../tests/reference/analyses-benchmark-chain';
 
 const request = (body: object): EnsembleRequest => {
@@ -174,6 +175,22 @@ describe('ensembles', () => {
       const v = sampleDistribution(d, rng);
       expect(v).toBeGreaterThanOrEqual(-0.5);
       expect(v).toBeLessThanOrEqual(2);
+    }
+  });
+
+  it('points at the distribution when a draw makes the model invalid', () => {
+    const req = request(
+      producerOnly([], 5, {
+        parameters: [
+          { pointer: '/levels/0/growthRate', distribution: { kind: 'normal', mean: 0, sd: 1 } },
+        ],
+      }),
+    );
+    expect(() => runEnsembleMembers(req, 0, 5)).toThrow(ModelValidationError);
+    try {
+      runEnsembleMembers(req, 0, 5);
+    } catch (e) {
+      expect((e as ModelValidationError).errors[0]!.pointer).toBe('/parameters/0/distribution');
     }
   });
 
