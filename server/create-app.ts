@@ -13,6 +13,7 @@ import { healthRoutes } from './health/health-routes';
 import { notFound, problemHandler } from './http/problem';
 import { staticAppRoutes } from './http/static-apps';
 import { issueDemoKeys, readDemoKeys, type DemoKeys } from './keys/demo-keys';
+import { scenariosApi } from './scenarios/scenarios-api';
 
 /** What the server shares with its routes, kept on `app.locals.tropline`. */
 export interface AppContext {
@@ -52,6 +53,7 @@ export function createApp(config: Config, options: AppOptions = {}): TroplineApp
   const db = openDatabase(config);
   const keyed = keyedApi(db, now, options.computeLimits);
   const accounts = accountsApi(db, config, now, keyed);
+  const scenarios = scenariosApi(db, config, now, keyed);
   const ready = prepareDatabase(db, config).then(async (outcome) => {
     if (config.nodeEnv !== 'production') {
       context.demoKeys = outcome.seeded
@@ -72,6 +74,7 @@ export function createApp(config: Config, options: AppOptions = {}): TroplineApp
     close: async () => {
       await accounts.close();
       await keyed.close();
+      await scenarios.close();
       await db.destroy();
     },
   };
@@ -111,6 +114,7 @@ export function createApp(config: Config, options: AppOptions = {}): TroplineApp
   api.use(healthRoutes(db));
   api.use(accounts.router);
   api.use(keyed.router);
+  api.use(scenarios.router);
   api.use(notFound);
   app.use('/api/v1', api);
   app.use('/api', docsRoutes());

@@ -565,3 +565,89 @@ export {
   /** Weighted time units of a comparison. */
   comparisonWork,
 } from './compare/compare-scenarios';
+
+// ── Scenarios and calibration (scenarios work) ──────────────────────────────────────────────
+export {
+  /** zod schema of one scenario version's content. */
+  scenarioContentSchema,
+  /** Validates scenario content; pointers under an optional prefix. */
+  validateScenarioContent,
+  /** zod schema of the Tropline scenario file (export/import). */
+  scenarioExportSchema,
+  /** Validates a scenario file for import; pointers into the file. */
+  validateScenarioExport,
+  /** Builds the scenario file of one version. */
+  scenarioExport,
+  /** `"tropline.scenario"`: the file's format tag. */
+  SCENARIO_FORMAT,
+  /** The file format's version. */
+  SCENARIO_FORMAT_VERSION,
+  /** Longest scenario horizon. */
+  MAX_SCENARIO_HORIZON,
+} from './scenario-contract/scenario-document';
+export type {
+  /** A validated scenario version's content. */
+  ScenarioContent,
+  /** A parsed scenario file. */
+  ScenarioExport,
+} from './scenario-contract/scenario-document';
+export {
+  /** zod schema of one public parameter and its range. */
+  publicParameterSchema,
+  /** Issues of public ranges against the model's own bounds. */
+  publicBoundsIssues,
+  /** zod schema of one public what-if change. */
+  whatIfChangeSchema,
+  /** Issues of what-if changes against the published ranges. */
+  whatIfIssues,
+  /** Most public parameters per scenario. */
+  MAX_PUBLIC_PARAMETERS,
+} from './scenario-contract/public-bounds';
+export type {
+  /** One public parameter and its range. */
+  PublicParameter,
+} from './scenario-contract/public-bounds';
+export {
+  /** Field-by-field differences of two JSON documents as JSON Pointers. */
+  diffDocuments,
+} from './scenario-contract/scenario-diff';
+export type {
+  /** One difference: pointer, before, after. */
+  FieldChange,
+} from './scenario-contract/scenario-diff';
+export {
+  /** zod schema of a calibration request. */
+  calibrationRequestSchema,
+  /** Validates a calibration request; pointers relative to the body. */
+  validateCalibrationRequest,
+  /** Weighted model time a calibration integrates at most (for pricing). */
+  calibrationWork,
+  /** Bounds on one calibration. */
+  CALIBRATION_LIMITS,
+} from './calibrate/calibration-request';
+export type {
+  /** A validated calibration request. */
+  CalibrationRequest,
+} from './calibrate/calibration-request';
+export {
+  /** Fits parameters and initial states to monitoring series (log-scale least squares). */
+  calibrateChain,
+} from './calibrate/calibrate-chain';
+export type {
+  /** A calibration's estimates, fit, residuals, trajectory and chaos verdict. */
+  CalibrationResult,
+  /** One fitted value with its standard error. */
+  Estimate,
+  /** Progress and cancellation of a calibration. */
+  CalibrateOptions,
+} from './calibrate/calibrate-chain';
+export {
+  /** Seeded monitoring series from a known model with log-normal error. */
+  syntheticSeries,
+} from './calibrate/synthetic-series';
+export type {
+  /** Options of syntheticSeries. */
+  SyntheticOptions,
+  /** Series with their truth. */
+  SyntheticSeries,
+} from './calibrate/synthetic-series';

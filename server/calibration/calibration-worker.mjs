@@ -1,0 +1,7 @@
+// Piscina worker entry for calibrations. Worker threads do not inherit the TypeScript loader of
+// their parent (vitest, tsx), so this plain-JavaScript entry registers tsx for itself.
+import { tsImport } from 'tsx/esm/api';
+
+const task = await tsImport('./calibration-task.ts', import.meta.url);
+
+export default task.default;
