@@ -42,6 +42,12 @@ export const BUILD_STEPS: readonly BuildStep[] = [
     command: ['npx', 'ng', 'build', 'demo-portal'],
     output: 'dist/demo-portal',
   },
+  {
+    name: 'elements',
+    inputs: ['projects/elements', 'projects/widgets', 'shared', ...SHARED_INPUTS],
+    command: ['npx', 'ng', 'build', 'elements'],
+    output: 'dist/elements',
+  },
 ];
 
 function listFiles(path: string, out: string[]): void {

@@ -2,6 +2,7 @@ import express, { Router } from 'express';
 import helmet from 'helmet';
 import { existsSync } from 'node:fs';
 import { resolve } from 'node:path';
+import { embeddingGuideHandler, plainPageHandler } from './embedding-pages';
 
 /** A built front end and the path it is served under. */
 interface StaticApp {
@@ -16,6 +17,8 @@ export function staticApps(distDir: string): StaticApp[] {
   return [
     { mount: '/console', dir: resolve(distDir, 'console/browser'), spa: true },
     { mount: '/demo', dir: resolve(distDir, 'demo-portal/browser'), spa: true },
+    // The custom elements: one ES module (main.js) and its stylesheet (styles.css).
+    { mount: '/elements', dir: resolve(distDir, 'elements/browser'), spa: false },
     { mount: '/storybook', dir: resolve(distDir, 'storybook'), spa: false },
   ];
 }
@@ -30,6 +33,7 @@ export function staticAppRoutes(
 ): Router {
   const router = Router();
   router.get('/', (_req, res) => res.redirect(302, '/console/'));
+  router.get('/docs/embedding', embeddingGuideHandler);
   for (const app of staticApps(distDir)) {
     const sub = Router();
     if (app.mount === '/storybook') {
@@ -58,6 +62,14 @@ export function staticAppRoutes(
           }),
         );
     });
+    if (app.mount === '/demo') {
+      // The portal's plain HTML page: no Angular on it, the custom elements under a strict CSP.
+      sub.get('/plain', (_req, res) => res.redirect(301, '/demo/plain/'));
+      sub.get(
+        ['/plain/', '/plain/index.html'],
+        plainPageHandler(resolve(app.dir, 'plain/index.html'), demoRuntimeConfig),
+      );
+    }
     sub.use(express.static(app.dir, { index: 'index.html', fallthrough: true, maxAge: '1h' }));
     if (app.mount === '/demo') {
       // A deployed portal ships its own runtime-config.json (served just above); in development

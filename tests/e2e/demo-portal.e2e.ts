@@ -49,6 +49,28 @@ interface ProjectionAnswer {
   body: { series: Record<string, number[]> };
 }
 
+/** Share of a canvas's pixels that have been painted (not transparent). */
+async function paintedShare(page: Page, selector: string): Promise<number> {
+  const canvas = page.locator(selector).first();
+  await canvas.waitFor({ state: 'visible', timeout: 60_000 });
+  return canvas.evaluate((c: HTMLCanvasElement) => {
+    const { data } = c.getContext('2d')!.getImageData(0, 0, c.width, c.height);
+    let opaque = 0;
+    for (let i = 3; i < data.length; i += 4) if (data[i]! > 0) opaque++;
+    return opaque / (c.width * c.height);
+  });
+}
+
+/** Console errors and uncaught exceptions of a page. */
+function collectErrors(page: Page): string[] {
+  const errors: string[] = [];
+  page.on('console', (m) => {
+    if (m.type() === 'error') errors.push(m.text());
+  });
+  page.on('pageerror', (e) => errors.push(String(e)));
+  return errors;
+}
+
 describe('demo portal in Chromium', () => {
   let served: ServedApp;
   let browser: Browser;
@@ -121,6 +143,130 @@ describe('demo portal in Chromium', () => {
     expect(log.outside).toEqual([]);
     await page.screenshot({ path: resolve(ARTIFACTS, 'demo-portal.png'), fullPage: true });
   }, 120_000);
+
+  it('redraws the mere when a bounded parameter changes, and refuses one outside the bounds', async () => {
+    const sent: number[] = [];
+    let errors: string[] = [];
+    const { page, log } = await openPage(browser, served.base + '/demo/', (p) => {
+      errors = collectErrors(p);
+      p.on('request', (req) => {
+        if (req.url().endsWith('/api/v1/projections') && req.method() === 'POST') {
+          const body = req.postDataJSON() as { model: { levels: { carryingCapacity?: number }[] } };
+          sent.push(body.model.levels[0]!.carryingCapacity!);
+        }
+      });
+    });
+    const caption = page.locator('tropline-trajectory-chart figcaption');
+    await expect.poll(() => caption.textContent()).toContain('ends at');
+    const before = await caption.textContent();
+    expect(sent).toEqual([40]);
+
+    // Only what the publisher opened is editable: two fields, each with its published range.
+    const form = page.locator('tropline-parameter-form');
+    await expect.poll(() => form.locator('input[matinput]').count()).toBe(2);
+    const capacity = page.getByRole('spinbutton', { name: /most algae the water can hold/ });
+    await expect.poll(() => form.textContent()).toContain('20 – 60');
+
+    // Within the bounds: a new projection is asked for, answered, and drawn.
+    const answered = page.waitForResponse(
+      (res) =>
+        res.url().endsWith('/api/v1/projections') &&
+        (res.request().postDataJSON() as { model: { levels: { carryingCapacity?: number }[] } })
+          .model.levels[0]!.carryingCapacity === 25,
+      { timeout: 30_000 },
+    );
+    await capacity.fill('25');
+    const res = await answered;
+    expect(res.status()).toBe(200);
+    const series = ((await res.json()) as ProjectionAnswer['body']).series;
+    const perchEnd = new Intl.NumberFormat('en', { maximumSignificantDigits: 3 }).format(
+      series['perch']!.at(-1)!,
+    );
+    await expect.poll(() => caption.textContent()).toContain(`ends at ${perchEnd}`);
+    expect(await caption.textContent()).not.toBe(before);
+
+    // Outside the bounds: refused on the spot with a message, and never sent.
+    await capacity.fill('80');
+    await capacity.press('Tab');
+    const message = form.locator('mat-error');
+    await expect.poll(() => message.textContent()).toContain('Must be at most 60');
+    expect(await capacity.getAttribute('aria-invalid')).toBe('true');
+    const back = page.waitForResponse(
+      (r) =>
+        r.url().endsWith('/api/v1/projections') &&
+        (r.request().postDataJSON() as { model: { levels: { carryingCapacity?: number }[] } }).model
+          .levels[0]!.carryingCapacity === 45,
+      { timeout: 30_000 },
+    );
+    await capacity.fill('45');
+    expect((await back).status()).toBe(200);
+    expect(sent).not.toContain(80);
+    expect(sent).toContain(45);
+
+    await expect
+      .poll(() => page.locator('lla-public-caution').textContent())
+      .toContain('qualified biologists');
+    expect(errors).toEqual([]);
+    expect(log.outside).toEqual([]);
+    await page.screenshot({ path: resolve(ARTIFACTS, 'demo-portal-bounded.png'), fullPage: true });
+  }, 120_000);
+
+  it('compares the deer culls on the harvest page from the API’s comparison job', async () => {
+    let errors: string[] = [];
+    let submitted!: Promise<number>;
+    const { page, log } = await openPage(browser, served.base + '/demo/harvest', (p) => {
+      errors = collectErrors(p);
+      submitted = p
+        .waitForResponse(
+          (r) => r.url().endsWith('/api/v1/comparisons') && r.request().method() === 'POST',
+          { timeout: 30_000 },
+        )
+        .then((r) => r.status());
+    });
+    expect([200, 202]).toContain(await submitted);
+    const widget = page.locator('tropline-scenario-comparison');
+    await expect
+      .poll(() => widget.locator('table').last().textContent(), { timeout: 60_000 })
+      .toContain('Cull 15 % of deer a year');
+    expect(await widget.textContent()).toContain('No wolves return');
+    expect(await paintedShare(page, 'tropline-scenario-comparison canvas')).toBeGreaterThan(0.01);
+    await expect
+      .poll(() => widget.locator('tropline-caution-notice').textContent())
+      .toContain('not forecasts');
+    expect(await page.locator('h1').textContent()).toContain('Hobcairn Moor');
+    expect(await page.locator('lla-public-caution').textContent()).toContain('culls');
+    expect(errors).toEqual([]);
+    expect(log.outside).toEqual([]);
+    await page.screenshot({ path: resolve(ARTIFACTS, 'demo-portal-harvest.png'), fullPage: true });
+  }, 120_000);
+
+  it('shows the mere’s long-run regime and its bifurcation diagram from the API', async () => {
+    let errors: string[] = [];
+    const { page, log } = await openPage(browser, served.base + '/demo/long-run', (p) => {
+      errors = collectErrors(p);
+    });
+    const summary = page.locator('tropline-regime-summary');
+    // The lake's groups are the benchmark's at b1 = 3: chaotic, with a predictability horizon.
+    await expect
+      .poll(() => summary.locator('[data-regime]').getAttribute('data-regime'), { timeout: 60_000 })
+      .toBe('chaotic');
+    expect(await summary.textContent()).toContain('Predictability horizon');
+    await expect
+      .poll(() => page.locator('tropline-bifurcation-chart figcaption').textContent(), {
+        timeout: 60_000,
+      })
+      .toMatch(/\d/);
+    expect(await paintedShare(page, 'tropline-bifurcation-chart canvas')).toBeGreaterThan(0.01);
+    expect(await page.locator('lla-public-caution').textContent()).toContain(
+      'predictability horizon',
+    );
+    expect(await summary.locator('tropline-caution-notice').textContent()).toContain(
+      'not forecasts',
+    );
+    expect(errors).toEqual([]);
+    expect(log.outside).toEqual([]);
+    await page.screenshot({ path: resolve(ARTIFACTS, 'demo-portal-long-run.png'), fullPage: true });
+  }, 150_000);
 
   it('serves the console in Tropline’s theme, reporting the API as up', async () => {
     const { page, log } = await openPage(browser, served.base + '/console/');

@@ -1,17 +1,13 @@
 import { ChangeDetectionStrategy, Component } from '@angular/core';
-import { LAKE_DEMO } from '@tropline/core';
+import { RouterLink } from '@angular/router';
 import { ProjectionPanel } from '@tropline/widgets';
-
-/**
- * The mere's plankton chain as the authority's analysts set it up: Tropline's invented lake
- * demo (green algae, Daphnia, juvenile yellow perch in g C m⁻², weekly time step).
- */
-const BRACKENLOW_MERE = LAKE_DEMO;
+import { PublicCaution } from '../common/public-caution';
+import { publishedScenario } from '../common/published';
 
 /** Home page: what lives in the mere and how its food chain may change. */
 @Component({
   selector: 'lla-home-page',
-  imports: [ProjectionPanel],
+  imports: [ProjectionPanel, PublicCaution, RouterLink],
   template: `
     <h1>Living waters of Brackenlow Mere</h1>
     <p class="lla-lede">
@@ -19,12 +15,20 @@ const BRACKENLOW_MERE = LAKE_DEMO;
       these three rise and fall together tells our biologists whether the mere is settling down,
       swinging in cycles, or changing in ways no one can predict far ahead.
     </p>
+    <p class="lla-lede">
+      You can try two things our analysts have opened to the public: how much algae the water's
+      nutrients can carry, and how fast perch die of natural causes. Each stays within the range the
+      authority has checked; the chart redraws as you change them.
+      <a routerLink="/long-run">What happens in the long run?</a>
+    </p>
+    <lla-public-caution />
     <h2>The next four years, week by week, as the model sees them</h2>
     <tropline-projection-panel
-      [model]="model"
+      [model]="scenario.model"
       [initial]="initial"
-      [horizon]="208"
-      [samples]="833"
+      [horizon]="scenario.horizon"
+      [samples]="scenario.samples"
+      [bounds]="scenario.bounds"
     />
   `,
   styles: `
@@ -36,6 +40,6 @@ const BRACKENLOW_MERE = LAKE_DEMO;
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class HomePage {
-  protected readonly model = BRACKENLOW_MERE.model;
-  protected readonly initial = { ...BRACKENLOW_MERE.initial };
+  protected readonly scenario = publishedScenario('brackenlow-mere');
+  protected readonly initial = { ...this.scenario.initial };
 }
