@@ -50,11 +50,13 @@ export function describeRef(ref: string | null | undefined, people: ReadonlyMap<
   const id = rest.join(':');
   if (kind === 'user') {
     const m = people.get(id);
-    return m ? `${m.name} (${m.email})` : `Former member ${id.slice(0, 8)}`;
+    return m ? m.name : `Former member ${id.slice(0, 8)}`;
   }
   if (kind === 'key') return `API key ${id.slice(0, 8)}`;
   if (kind === 'email') return id;
+  if (kind === 'invitation') return 'Invitation link';
   if (ref === 'cli') return 'Command line';
+  if (ref === 'seed') return 'Demo data set-up';
   return ref;
 }
 

@@ -7,8 +7,14 @@ import {
   inject,
   signal,
   untracked,
+  viewChild,
 } from '@angular/core';
-import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import {
+  FormGroupDirective,
+  NonNullableFormBuilder,
+  ReactiveFormsModule,
+  Validators,
+} from '@angular/forms';
 import { MatButton } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -65,6 +71,8 @@ export class InvitationsPanel {
     role: ['analyst' as TenantRole, Validators.required],
   });
 
+  private readonly formDirective = viewChild.required(FormGroupDirective);
+
   constructor() {
     effect(() => {
       this.session.tenant();
@@ -76,7 +84,8 @@ export class InvitationsPanel {
     if (this.form.invalid) return this.form.markAllAsTouched();
     const { email, role } = this.form.getRawValue();
     const sent = await this.send(email.trim(), role, 'send the invitation');
-    if (sent) this.form.reset({ email: '', role });
+    // Resetting through the directive also clears "submitted", so no error shows on the empty field.
+    if (sent) this.formDirective().resetForm({ email: '', role });
   }
 
   protected async resend(inv: Invitation): Promise<void> {

@@ -1,0 +1,140 @@
+/// <reference lib="dom" />
+import { type Browser, chromium } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { CHROMIUM_ARGS, ensureChromium } from './chromium';
+import { checkpoint, consoleContext, DEMO, openFromNav, signIn } from './console-browser';
+import { type ServedApp, serveForBrowser } from './served-app';
+
+// An invented newcomer of the invented demo authority.
+const NEWCOMER = {
+  email: 'elin.sedgewick@larchmere.example',
+  name: 'Elin Sedgewick',
+  password: 'marsh-harrier-over-reeds',
+};
+
+describe('console: members, invitations and roles', () => {
+  let served: ServedApp;
+  let browser: Browser;
+
+  beforeAll(async () => {
+    served = await serveForBrowser();
+    browser = await chromium.launch({ executablePath: ensureChromium(), args: CHROMIUM_ARGS });
+  });
+
+  afterAll(async () => {
+    await browser?.close();
+    await served?.stop();
+  });
+
+  it('an admin invites an analyst, who joins from the mail in the development mailbox', async () => {
+    const admin = await consoleContext(browser);
+    const page = admin.page;
+    await signIn(page, served.base, DEMO.admin);
+    await openFromNav(page, 'Members');
+    await page.getByRole('table', { name: 'Members' }).waitFor();
+    // An admin may not touch the owner: the owner's role is text, not a menu.
+    const ownerRow = page.getByRole('row', { name: /Maren Oakhollow/ });
+    expect(await ownerRow.getByRole('combobox').count()).toBe(0);
+    await checkpoint(page, 'members-01-list');
+
+    const invite = page.getByRole('region', { name: 'Invite a colleague' });
+    await invite.getByLabel('E-mail address').fill(NEWCOMER.email);
+    await invite.getByRole('combobox', { name: 'Role' }).click();
+    await page.getByRole('option', { name: 'Analyst' }).click();
+    await invite.getByRole('button', { name: 'Send invitation' }).click();
+    await expect
+      .poll(() => page.getByRole('table', { name: 'Pending invitations' }).textContent())
+      .toContain(NEWCOMER.email);
+    expect(await invite.getByRole('status').textContent()).toContain('Invitation sent');
+    await checkpoint(page, 'members-02-invited');
+
+    // The newcomer opens the development mailbox in their own browser.
+    const newcomer = await consoleContext(browser);
+    const mine = newcomer.page;
+    await mine.goto(`${served.base}/console/mailbox`, { waitUntil: 'networkidle' });
+    const message = mine.getByRole('option', { name: /Join .* on Tropline/ });
+    await expect
+      .poll(async () => {
+        await mine.getByRole('button', { name: 'Check for new mail' }).click();
+        return message.count();
+      })
+      .toBe(1);
+    await message.click();
+    await mine.frameLocator('iframe').locator('body').waitFor();
+    await checkpoint(mine, 'members-03-mailbox');
+
+    await mine.getByRole('link', { name: 'Open the invitation' }).click();
+    await mine.getByRole('heading', { name: 'Accept an invitation' }).waitFor();
+    await expect
+      .poll(() => mine.locator('tc-invitation-page').textContent())
+      .toContain('as Analyst');
+    await mine.getByLabel('Your name').fill(NEWCOMER.name);
+    await mine.getByLabel('Choose a password').fill(NEWCOMER.password);
+    await checkpoint(mine, 'members-04-accept');
+    await mine.getByRole('button', { name: /^Join / }).click();
+
+    // Signed in as the analyst: no key or audit pages offered.
+    await mine.getByRole('heading', { name: `Welcome, ${NEWCOMER.name}` }).waitFor();
+    const nav = mine.getByRole('navigation', { name: 'Console pages' });
+    expect(await nav.getByRole('link', { name: 'API keys' }).count()).toBe(0);
+    expect(await nav.getByRole('link', { name: 'Audit trail' }).count()).toBe(0);
+    await checkpoint(mine, 'members-05-analyst-overview');
+
+    // The admin sees the new member; the invitation is no longer pending.
+    await page.reload({ waitUntil: 'networkidle' });
+    await expect
+      .poll(() => page.getByRole('table', { name: 'Members' }).textContent())
+      .toContain(NEWCOMER.name);
+    expect(await page.getByText('No invitation is waiting for an answer.').count()).toBe(1);
+
+    // The audit trail records the invitation and the join.
+    await openFromNav(page, 'Audit trail');
+    await page.getByRole('table', { name: /Audit events/ }).waitFor();
+    const trail = await page.getByRole('table', { name: /Audit events/ }).textContent();
+    expect(trail).toContain('Invited someone');
+    expect(trail).toContain('Joined');
+    await checkpoint(page, 'members-06-audit');
+    expect([...admin.outside, ...newcomer.outside]).toEqual([]);
+  });
+
+  it('a viewer finds no way to change anything', async () => {
+    const { page, outside } = await consoleContext(browser);
+    await signIn(page, served.base, DEMO.viewer);
+    const nav = page.getByRole('navigation', { name: 'Console pages' });
+    const offered = await nav.locator('[matListItemTitle]').allTextContents();
+    expect(offered.map((t) => t.trim())).toEqual([
+      'Overview',
+      'Members',
+      'Development mailbox',
+      'Service status',
+    ]);
+    await checkpoint(page, 'viewer-01-overview');
+
+    await openFromNav(page, 'Members');
+    const members = page.getByRole('table', { name: 'Members' });
+    await members.waitFor();
+    expect(await members.getByRole('combobox').count()).toBe(0);
+    expect(await page.locator('tc-members-page').getByRole('button').count()).toBe(0);
+    expect(await page.getByRole('region', { name: 'Invite a colleague' }).count()).toBe(0);
+    await checkpoint(page, 'viewer-02-members');
+
+    // Typing the address of an admin page explains instead of showing controls.
+    await page.goto(`${served.base}/console/keys`, { waitUntil: 'networkidle' });
+    await page.getByRole('heading', { name: 'This page is not available to your role' }).waitFor();
+    expect(await page.locator('main').textContent()).toContain('As viewer you may do');
+    await checkpoint(page, 'viewer-03-not-allowed');
+
+    // And the server agrees.
+    const status = await page.evaluate(async () => {
+      const session = await (await fetch('/api/v1/session')).json();
+      const res = await fetch('/api/v1/invitations', {
+        method: 'POST',
+        headers: { 'Content-Type': 'application/json', 'X-CSRF-Token': session.csrfToken },
+        body: JSON.stringify({ email: 'someone@larchmere.example', role: 'viewer' }),
+      });
+      return res.status;
+    });
+    expect(status).toBe(403);
+    expect(outside).toEqual([]);
+  });
+});
