@@ -39,7 +39,7 @@ export {
   type TroplineApiError,
   type ApiFieldError,
 } from './lib/api/problem-message';
-export { troplineEcharts } from './lib/api/tropline-echarts';
+export { loadTroplineEcharts, type TroplineEcharts } from './lib/api/tropline-echarts';
 export { CautionNotice, DEFAULT_CAUTIONS } from './lib/caution-notice/caution-notice';
 export { ProjectionPanel } from './lib/projection-panel/projection-panel';
 export { TrajectoryChart } from './lib/trajectory-chart/trajectory-chart';

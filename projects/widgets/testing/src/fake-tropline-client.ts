@@ -25,7 +25,7 @@ import {
   type TroplineApiError,
   TroplineClient,
   type TroplineOptions,
-  troplineEcharts,
+  loadTroplineEcharts,
 } from '@tropline/widgets';
 
 /** A unit of an analysis the fake runs between progress reports. */
@@ -261,7 +261,7 @@ export function provideTroplineTesting(
 ): Provider[] {
   return [
     ...provideFakeTroplineClient(settings.client),
-    provideEchartsCore({ echarts: troplineEcharts }),
+    provideEchartsCore({ echarts: loadTroplineEcharts }),
     {
       provide: TROPLINE_OPTIONS,
       useValue: {

@@ -1,7 +1,7 @@
 import { provideHttpClient, withFetch } from '@angular/common/http';
 import { type EnvironmentProviders, makeEnvironmentProviders } from '@angular/core';
 import { provideEchartsCore } from 'ngx-echarts';
-import { troplineEcharts } from './tropline-echarts';
+import { loadTroplineEcharts } from './tropline-echarts';
 import { defaultTroplineOptions, TROPLINE_OPTIONS, type TroplineOptions } from './tropline-options';
 import {
   DEFAULT_TROPLINE_STRINGS,
@@ -26,7 +26,8 @@ export function provideTropline(
   const { strings, ...rest } = options;
   return makeEnvironmentProviders([
     provideHttpClient(withFetch()),
-    provideEchartsCore({ echarts: troplineEcharts }),
+    // ECharts loads with the first chart, not with the page.
+    provideEchartsCore({ echarts: loadTroplineEcharts }),
     {
       provide: TROPLINE_OPTIONS,
       useValue: {

@@ -21,8 +21,8 @@ describe('tableCsv', () => {
 });
 
 describe('optionSvg', () => {
-  it('renders an option to a standalone SVG document', () => {
-    const svg = optionSvg(
+  it('renders an option to a standalone SVG document', async () => {
+    const svg = await optionSvg(
       {
         xAxis: { type: 'value' },
         yAxis: { type: 'value' },

@@ -1,5 +1,5 @@
 import type { EChartsCoreOption, EChartsType } from 'echarts/core';
-import { troplineEcharts } from '../api/tropline-echarts';
+import { loadTroplineEcharts } from '../api/tropline-echarts';
 
 /** A chart's numbers as a table: the accessible alternative and the CSV export. */
 export interface ChartTable {
@@ -24,8 +24,13 @@ export function tableCsv(table: ChartTable): string {
 }
 
 /** Renders an option to an SVG document off-screen (ECharts' server-side SVG renderer). */
-export function optionSvg(option: EChartsCoreOption, width: number, height: number): string {
-  const chart = troplineEcharts.init(null, null, {
+export async function optionSvg(
+  option: EChartsCoreOption,
+  width: number,
+  height: number,
+): Promise<string> {
+  const echarts = await loadTroplineEcharts();
+  const chart = echarts.init(null, null, {
     renderer: 'svg',
     ssr: true,
     width: Math.max(320, width),

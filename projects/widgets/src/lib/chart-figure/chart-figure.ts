@@ -76,11 +76,11 @@ export class ChartFigure {
       saveFile(this.document, `${this.fileName()}.png`, chartPng(chart, this.background()));
   }
 
-  protected exportSvg(): void {
+  protected async exportSvg(): Promise<void> {
     const option = this.option();
     if (!option) return;
     const chart = this.chart();
-    const svg = optionSvg(
+    const svg = await optionSvg(
       { ...option, backgroundColor: this.background() },
       chart?.getWidth() ?? 800,
       chart?.getHeight() ?? 400,

@@ -167,7 +167,7 @@ export function trajectoryChartOptions(
     };
     const points = data.times.map((t, k) => [t, value(s.values[k])]);
     if (!faded) {
-      return [{ ...base, id: s.id, data: points, endLabel: { show: true, formatter: s.name } }];
+      return [{ ...base, id: s.id, data: points }];
     }
     // Split at the horizon; both halves share the point there so the line stays continuous.
     const cut = data.times.findIndex((t) => t >= horizon);
