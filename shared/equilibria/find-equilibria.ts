@@ -47,9 +47,16 @@ export function findEquilibria(model: ChainModel): Equilibrium[] {
   const n = kernel.dimension;
   const scales = levelScales(model);
   const found: { y: Float64Array; method: Equilibrium['method'] }[] = [];
+  const residual = new Float64Array(n);
   const add = (y: Float64Array, method: Equilibrium['method']): void => {
     if (!y.every(Number.isFinite)) return;
     for (let i = 0; i < n; i++) if (isZero(y[i]!, scales[i]!)) y[i] = 0;
+    // Zeroing rounding-level entries must leave a root; drop anything that is not one.
+    kernel.rhs(0, y, residual);
+    const rate = model.levels[0].growthRate;
+    for (let i = 0; i < n; i++) {
+      if (!(Math.abs(residual[i]!) <= 1e-10 * rate * Math.max(scales[i]!, Math.abs(y[i]!)))) return;
+    }
     const dup = found.some((f) =>
       f.y.every(
         (v, i) =>
@@ -65,11 +72,14 @@ export function findEquilibria(model: ChainModel): Equilibrium[] {
       if (roots) for (const y of roots) add(polish(kernel, y, scales), 'closed-form');
     }
   }
-  const stocked = (model.stocking ?? []).some((s) => s.amount > 0);
+  const stockedLevels = new Set(
+    (model.stocking ?? []).filter((s) => s.amount > 0).map((s) => kernel.ids.indexOf(s.level)),
+  );
+  const stocked = stockedLevels.size > 0;
   if (!closed || n === 4) {
     for (const y of newtonEquilibria(kernel, { scales, supports: !stocked })) {
       if (closed && y.some((v, i) => isZero(v, scales[i]!))) continue; // closed form has these
-      if (!stocked && !chainShaped(y, scales)) continue;
+      if (!chainShaped(y, scales, stockedLevels)) continue;
       add(y, 'newton');
     }
   }
@@ -105,16 +115,15 @@ export function findEquilibria(model: ChainModel): Equilibrium[] {
 }
 
 /**
- * Whether the levels present are 0..p for some p (a producer with its consumers stacked on it).
- * Without stocking, every other root needs a consumer living without food, which only happens
- * at negative densities; the chain's equilibria are defined as the partial chains.
+ * Whether every consumer present has its prey present (or is stocked): without stocking the
+ * levels present are 0..p, a producer with its consumers stacked on it. Other real roots need a
+ * consumer living without food, which only happens at negative densities; the chain's
+ * equilibria are defined as the (partial) chains.
  */
-function chainShaped(y: Float64Array, scales: Float64Array): boolean {
-  let gap = false;
-  for (let i = 0; i < y.length; i++) {
-    const zero = isZero(y[i]!, scales[i]!);
-    if (!zero && gap) return false;
-    gap ||= zero;
+function chainShaped(y: Float64Array, scales: Float64Array, stocked: ReadonlySet<number>): boolean {
+  for (let i = 1; i < y.length; i++) {
+    if (!isZero(y[i]!, scales[i]!) && isZero(y[i - 1]!, scales[i - 1]!) && !stocked.has(i))
+      return false;
   }
   return true;
 }

@@ -65,6 +65,7 @@ export function newtonRoot(
   const f = new Float64Array(n);
   const jac = new Float64Array(n * n);
   const trial = new Float64Array(n);
+  const ft = new Float64Array(n);
   let norm = residualNorm(kernel, y, f, scales);
   for (let iter = 0; iter < 100; iter++) {
     if (norm < 1e-13) return true;
@@ -75,9 +76,10 @@ export function newtonRoot(
     let improved = false;
     for (let k = 0; k < 30; k++, lambda /= 2) {
       for (let i = 0; i < n; i++) trial[i] = y[i]! + lambda * dx[i]!;
-      const tn = residualNorm(kernel, trial, f, scales);
+      const tn = residualNorm(kernel, trial, ft, scales);
       if (Number.isFinite(tn) && tn < norm) {
         y.set(trial);
+        f.set(ft);
         norm = tn;
         improved = true;
         break;
@@ -100,7 +102,7 @@ function lcg(seed: number): () => number {
 /**
  * Numerical fallback: damped Newton on the full system from deterministic starts spread
  * log-uniformly over [1e-3, 1e3]·scale (a few with negative entries, to catch infeasible roots),
- * with levels above each support starting at zero. Returns every converged root, unsorted and not
+ * with levels above each support starting at zero (with stocking, half of them random instead). Returns every converged root, unsorted and not
  * de-duplicated.
  */
 export function newtonEquilibria(kernel: ChainKernel, options: NewtonOptions): Float64Array[] {
@@ -115,10 +117,12 @@ export function newtonEquilibria(kernel: ChainKernel, options: NewtonOptions): F
         const sign = k % 8 === 7 && rand() < 0.5 ? -1 : 1;
         y[i] = sign * options.scales[i]! * 10 ** (6 * rand() - 3);
       }
-      if (options.supports === false && top < n - 1) {
+      if (options.supports === false && top < n - 1 && k % 2 === 1) {
         for (let i = top + 1; i < n; i++) y[i] = options.scales[i]! * 10 ** (6 * rand() - 3);
       }
-      if (newtonRoot(kernel, y, options.scales)) roots.push(y);
+      if (!newtonRoot(kernel, y, options.scales)) continue;
+      // Roots far outside any plausible range are artefacts of near-singular responses.
+      if (y.every((v, i) => Math.abs(v) < 1e6 * options.scales[i]!)) roots.push(y);
     }
   }
   return roots;

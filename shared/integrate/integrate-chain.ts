@@ -37,7 +37,10 @@ export interface IntegrateOptions {
     y: readonly number[],
     dense: DenseInterpolant,
   ) => boolean | void;
-  /** Components ODEX keeps dense output for (0-based); default all. Fewer is cheaper. */
+  /**
+   * Components ODEX keeps dense output for (0-based); default all. Fewer is cheaper; samples of
+   * the others read NaN except at step ends.
+   */
   readonly denseComponents?: readonly number[];
   /** Clock in ms; default `performance.now`. */
   readonly now?: () => number;
@@ -55,8 +58,12 @@ export interface IntegrateResult {
 
 /** Blow-up bound as a multiple of a component's scale (or start value, if larger). */
 export const BLOW_UP_FACTOR = 1e12;
-/** A level below −NEGATIVE_SLACK·atol is an error; in [−NEGATIVE_SLACK·atol, 0) it reads as 0. */
-export const NEGATIVE_SLACK = 10;
+/**
+ * A level below −NEGATIVE_SLACK·atol is an error; in [−NEGATIVE_SLACK·atol, 0) it reads as 0.
+ * The chain's equations keep every level ≥ 0 exactly, so small negatives are the integrator's
+ * noise around an extinct level (seen down to −14·atol when a quota drives a producer out).
+ */
+export const NEGATIVE_SLACK = 1000;
 
 /**
  * Integrates y' = f(t, y) with ODEX (Hairer–Wanner extrapolation, via odex) from t0 to t1 with
@@ -135,12 +142,16 @@ export function integrateChain(
   if (options.denseComponents) solver.denseComponents = [...options.denseComponents];
 
   const times = options.sampleTimes;
+  // Components without dense output read NaN between step ends.
+  const denseMask = new Uint8Array(n).fill(options.denseComponents ? 0 : 1);
+  for (const c of options.denseComponents ?? []) denseMask[c] = 1;
   const sample = new Float64Array(n);
   let next = 0;
   const emit = (t: number, value: (i: number) => number): void => {
     for (let i = 0; i < n; i++) {
       let v = value(i);
       if (i < nonNegative && v < 0 && v >= -NEGATIVE_SLACK * atol[i]!) v = 0;
+      // (NaN for components left out of denseComponents passes through unchanged.)
       sample[i] = v;
     }
     options.onSample?.(next, t, sample);
@@ -188,7 +199,7 @@ export function integrateChain(
     if (times && dense) {
       while (next < times.length && times[next]! <= t) {
         const ts = times[next]!;
-        emit(ts, ts === t ? (i) => y[i]! : (i) => dense(i, ts));
+        emit(ts, ts === t ? (i) => y[i]! : (i) => (denseMask[i] ? dense(i, ts) : NaN));
       }
     }
     if (options.onStep && dense && options.onStep(tOld, t, y, dense) === false) {

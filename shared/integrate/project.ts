@@ -16,6 +16,21 @@ export interface ProjectOptions {
   readonly now?: () => number;
 }
 
+/**
+ * How far below its scale a level is still followed to the relative tolerance: the absolute
+ * floor is `tolerance · ABSOLUTE_FLOOR_FRACTION · min(1, S)`. A consumer crash drives its prey
+ * exponentially close to zero; with a floor equal to the tolerance the integrator stops
+ * resolving it there, it can cross zero, and since the equations are linear in each level near
+ * zero it then grows the wrong way (the "atto-fox" problem). 1e-4 fixed every such case found by
+ * the property tests for +6 % RHS evaluations on the benchmark.
+ */
+export const ABSOLUTE_FLOOR_FRACTION = 1e-4;
+
+/** Per-level absolute tolerances for a relative tolerance (see ABSOLUTE_FLOOR_FRACTION). */
+export function absoluteFloor(tolerance: number, scales: ArrayLike<number>): Float64Array {
+  return Float64Array.from(scales, (s) => tolerance * ABSOLUTE_FLOOR_FRACTION * Math.min(1, s));
+}
+
 /** The `samples` evenly spaced times from 0 to `horizon` inclusive (the last exactly horizon). */
 export function sampleTimes(horizon: number, samples: number): Float64Array {
   const out = new Float64Array(samples);
@@ -27,7 +42,7 @@ export function sampleTimes(horizon: number, samples: number): Float64Array {
 /**
  * Projects a chain: validates the request body (throwing {@link ModelValidationError} with
  * body-relative pointers), integrates with ODEX at the requested tolerance (absolute floor
- * `tolerance · S` per level, S from levelScales) and samples the dense solution at evenly spaced
+ * from {@link absoluteFloor}) and samples the dense solution at evenly spaced
  * times. Throws {@link IntegrationError} (code `step-limit`, `time-limit`, `blow-up`,
  * `non-finite` or `negative-level`) when it cannot finish. Deterministic.
  */
@@ -44,6 +59,7 @@ export function projectValidated(
 ): ProjectionResponse {
   const kernel = compileChain(req.model);
   const n = kernel.dimension;
+  const scales = levelScales(req.model);
   const times = sampleTimes(req.horizon, req.samples);
   const columns = Array.from({ length: n }, () => new Array<number>(req.samples));
   const result = integrateChain(
@@ -52,7 +68,8 @@ export function projectValidated(
     {
       t1: req.horizon,
       tolerance: req.tolerance,
-      scales: levelScales(req.model),
+      scales,
+      absoluteTolerance: absoluteFloor(req.tolerance, scales),
       maxSteps: Math.min(options.maxSteps ?? ENGINE_LIMITS.maxSteps, ENGINE_LIMITS.maxSteps),
       wallTimeMs: options.wallTimeMs ?? ENGINE_LIMITS.defaultWallTimeMs,
       ids: kernel.ids,
