@@ -121,7 +121,9 @@ describe('console: members, invitations and roles', () => {
     // Typing the address of an admin page explains instead of showing controls.
     await page.goto(`${served.base}/console/keys`, { waitUntil: 'networkidle' });
     await page.getByRole('heading', { name: 'This page is not available to your role' }).waitFor();
-    expect(await page.locator('main').textContent()).toContain('As viewer you may do');
+    expect(await page.locator('main').textContent()).toContain(
+      'As viewer your role covers reading',
+    );
     await checkpoint(page, 'viewer-03-not-allowed');
 
     // And the server agrees.

@@ -44,7 +44,7 @@ export class NotAllowedPage {
   protected readonly explanation = computed(() => {
     const role = this.session.role();
     return role
-      ? `As ${ROLE_LABELS[role].name.toLowerCase()} you may do ${ROLE_LABELS[role].summary}.`
+      ? `As ${ROLE_LABELS[role].name.toLowerCase()} your role covers ${ROLE_LABELS[role].summary}.`
       : 'You belong to no tenant yet; an invitation from an admin gives you a role.';
   });
 }

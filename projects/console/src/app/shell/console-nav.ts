@@ -34,7 +34,10 @@ export const ROLE_LABELS: Readonly<Record<TenantRole, { name: string; summary: s
   owner: { name: 'Owner', summary: 'everything, including who else is owner' },
   admin: { name: 'Admin', summary: 'keys, members and the audit trail, plus analyst work' },
   analyst: { name: 'Analyst', summary: 'scenarios, data, analyses and publishing' },
-  viewer: { name: 'Viewer', summary: 'reads scenarios, data, usage and members; changes nothing' },
+  viewer: {
+    name: 'Viewer',
+    summary: 'reading scenarios, data, usage and members, without changes',
+  },
 };
 
 /** A role's name on screen; an unknown value shows as it is. */

@@ -65,7 +65,12 @@ export class SignInPage {
       await this.session.signIn(email.trim(), password);
       await this.router.navigateByUrl(safeNext(this.next()));
     } catch (err) {
-      this.problem.set(problemText(err, 'sign in'));
+      const p = problemText(err, 'sign in');
+      this.problem.set(
+        p.status === 401
+          ? { ...p, next: 'Check both and try again, or choose “Forgot your password?” below.' }
+          : p,
+      );
     } finally {
       this.busy.set(false);
     }
