@@ -45,7 +45,7 @@ export const BUILD_STEPS: readonly BuildStep[] = [
   {
     name: 'elements',
     inputs: ['projects/elements', 'projects/widgets', 'shared', ...SHARED_INPUTS],
-    command: ['npx', 'ng', 'build', 'elements'],
+    command: ['npx', 'tsx', 'projects/elements/build-elements.ts'],
     output: 'dist/elements',
   },
 ];

@@ -41,10 +41,12 @@ export function plainPageHandler(
     if (!existsSync(file)) return next();
     const nonce = randomBytes(16).toString('base64');
     const config = runtime() ?? { apiUrl: '/api/v1', apiKey: '' };
-    const html = readFileSync(file, 'utf8')
-      .replaceAll('{{nonce}}', escapeHtml(nonce))
-      .replaceAll('{{apiUrl}}', escapeHtml(config.apiUrl))
-      .replaceAll('{{apiKey}}', escapeHtml(config.apiKey));
+    const values: Record<string, string> = { nonce, apiUrl: config.apiUrl, apiKey: config.apiKey };
+    // Placeholders are written `{{ name }}` (formatters may add the spaces).
+    const html = readFileSync(file, 'utf8').replace(
+      /\{\{\s*(nonce|apiUrl|apiKey)\s*\}\}/g,
+      (_m, name: string) => escapeHtml(values[name]!),
+    );
     res.setHeader('Content-Security-Policy', strictPolicy(nonce));
     res.setHeader('Cache-Control', 'no-store');
     res.type('html').send(html);

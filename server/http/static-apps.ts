@@ -17,7 +17,7 @@ export function staticApps(distDir: string): StaticApp[] {
   return [
     { mount: '/console', dir: resolve(distDir, 'console/browser'), spa: true },
     { mount: '/demo', dir: resolve(distDir, 'demo-portal/browser'), spa: true },
-    // The custom elements: one ES module (main.js) and its stylesheet (styles.css).
+    // The custom elements: one ES module and its stylesheet (tropline-elements.{js,css}).
     { mount: '/elements', dir: resolve(distDir, 'elements/browser'), spa: false },
     { mount: '/storybook', dir: resolve(distDir, 'storybook'), spa: false },
   ];
@@ -64,10 +64,11 @@ export function staticAppRoutes(
     });
     if (app.mount === '/demo') {
       // The portal's plain HTML page: no Angular on it, the custom elements under a strict CSP.
-      sub.get('/plain', (_req, res) => res.redirect(301, '/demo/plain/'));
-      sub.get(
-        ['/plain/', '/plain/index.html'],
-        plainPageHandler(resolve(app.dir, 'plain/index.html'), demoRuntimeConfig),
+      const plainPage = plainPageHandler(resolve(app.dir, 'plain/index.html'), demoRuntimeConfig);
+      sub.get(['/plain', '/plain/index.html'], (req, res, next) =>
+        req.originalUrl.split('?')[0] === '/demo/plain'
+          ? res.redirect(301, '/demo/plain/')
+          : plainPage(req, res, next),
       );
     }
     sub.use(express.static(app.dir, { index: 'index.html', fallthrough: true, maxAge: '1h' }));

@@ -14,7 +14,12 @@ import { comparisonRequest } from './published-scenarios';
   template: `
     @if (inputs(); as i) {
       <ng-container
-        *ngComponentOutlet="comparison; inputs: i; environmentInjector: environment()"
+        *ngComponentOutlet="
+          comparison;
+          inputs: i;
+          injector: environment();
+          environmentInjector: environment()
+        "
       />
     } @else {
       <p class="tropline-element__missing" role="alert">{{ reason() }}</p>

@@ -16,10 +16,22 @@ import { sweepRequest } from './published-scenarios';
   template: `
     @if (published()) {
       <ng-container
-        *ngComponentOutlet="summary; inputs: summaryInputs(); environmentInjector: environment()"
+        *ngComponentOutlet="
+          summary;
+          inputs: summaryInputs();
+          injector: environment();
+          environmentInjector: environment()
+        "
       />
       @if (chartInputs(); as c) {
-        <ng-container *ngComponentOutlet="chart; inputs: c; environmentInjector: environment()" />
+        <ng-container
+          *ngComponentOutlet="
+            chart;
+            inputs: c;
+            injector: environment();
+            environmentInjector: environment()
+          "
+        />
       }
     } @else {
       <p class="tropline-element__missing" role="alert">{{ missingMessage() }}</p>

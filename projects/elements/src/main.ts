@@ -1,3 +1,5 @@
+// First: configures zod before @tropline/core builds its presets (see the file).
+import './zod-jitless';
 import {
   type ApplicationRef,
   CSP_NONCE,

@@ -13,7 +13,12 @@ import { ElementHost } from './element-host';
   template: `
     @if (published()) {
       <ng-container
-        *ngComponentOutlet="panel; inputs: inputs(); environmentInjector: environment()"
+        *ngComponentOutlet="
+          panel;
+          inputs: inputs();
+          injector: environment();
+          environmentInjector: environment()
+        "
       />
     } @else {
       <p class="tropline-element__missing" role="alert">{{ missingMessage() }}</p>
