@@ -4,6 +4,7 @@ import type { Config } from '../config';
 import type { KeysService } from '../keys/keys-service';
 import { mailboxRoutes } from '../mail/mailbox-routes';
 import { Mailer, type MailerOptions } from '../mail/mailer';
+import { consoleUsageRoutes } from '../quotas/console-usage-routes';
 import type { QuotasService } from '../quotas/quotas-service';
 import { auditEventsRoutes } from './audit-events-routes';
 import { consoleKeysRoutes } from './console-keys-routes';
@@ -88,6 +89,7 @@ export function accountsApi(
   router.use(passwordResetsRoutes(resets));
   router.use(auditEventsRoutes(db));
   router.use(consoleKeysRoutes(db, keyed.keys));
+  router.use(consoleUsageRoutes(db, now));
   router.use(operatorRoutes(db, keyed.quotas, now));
   if (mailer.catcher) router.use(mailboxRoutes(mailer.catcher));
 
