@@ -226,6 +226,10 @@ export {
   projectValidated,
   /** Evenly spaced sample times 0..horizon. */
   sampleTimes,
+  /** Per-level absolute tolerances for a relative tolerance (the engine's floor). */
+  absoluteFloor,
+  /** The floor as a fraction of the tolerance times min(1, level scale). */
+  ABSOLUTE_FLOOR_FRACTION,
 } from './integrate/project';
 export type {
   /** Budgets for one projection. */
