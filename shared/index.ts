@@ -240,6 +240,8 @@ export type {
 export {
   /** Every equilibrium of a chain with eigenvalues and stability. */
   findEquilibria,
+  /** Validates an equilibria request body and answers `{ equilibria }`. */
+  computeEquilibria,
 } from './equilibria/find-equilibria';
 export type {
   /** One equilibrium with its stability. */

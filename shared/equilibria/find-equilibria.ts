@@ -1,4 +1,6 @@
+import { validateEquilibriaRequest } from '../contract/equilibria-contract';
 import { compileChain, levelScales } from '../model/chain-kernel';
+import { ModelValidationError } from '../model/validation-issue';
 import type { ChainModel } from '../model/chain-model';
 import { stateRecord } from '../model/initial-vector';
 import { classifyEquilibrium, type EquilibriumClass } from '../stability/classify-equilibrium';
@@ -139,4 +141,14 @@ function polish(
     copy.every((v, i) => Math.abs(v - y[i]!) <= 1e-6 * Math.max(scales[i]!, Math.abs(v)))
     ? copy
     : y;
+}
+
+/**
+ * The `/equilibria` computation: validates the body `{ model }` (throwing
+ * {@link ModelValidationError} with body-relative pointers) and answers `{ equilibria }`.
+ */
+export function computeEquilibria(body: unknown): { equilibria: Equilibrium[] } {
+  const checked = validateEquilibriaRequest(body);
+  if (!checked.ok) throw new ModelValidationError(checked.errors);
+  return { equilibria: findEquilibria(checked.value.model) };
 }

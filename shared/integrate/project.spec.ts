@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { PROJECTION_CAUTIONS } from '../contract/cautions';
+import { projectionResponseSchema } from '../contract/projection-response';
 import { compileChain } from '../model/chain-kernel';
 import { ModelValidationError } from '../model/validation-issue';
 import { HASTINGS_POWELL_BENCHMARK as B } from '../model/presets';
@@ -31,6 +32,16 @@ describe('project', () => {
       r.diagnostics.steps,
     );
     expect(r.cautions).toEqual(PROJECTION_CAUTIONS);
+  });
+
+  it('matches the response schema, and projects the contract example with its harvest', () => {
+    expect(projectionResponseSchema.safeParse(project(body)).success).toBe(true);
+    const harvested = {
+      ...B.model,
+      harvest: [{ level: 'z', kind: 'effort', rate: 0.02 }],
+    };
+    const r = project({ model: harvested, initial: B.initial, horizon: 500, samples: 6 });
+    expect(r.series.z!.every((v) => Number.isFinite(v) && v >= 0)).toBe(true);
   });
 
   it('is deterministic bit for bit', () => {

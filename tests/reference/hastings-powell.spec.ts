@@ -1,6 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import {
   compileChain,
+  computeEquilibria,
+  equilibriaResponseSchema,
+  ModelValidationError,
   findEquilibria,
   fromHastingsPowell,
   HASTINGS_POWELL_BENCHMARK as B,
@@ -189,5 +192,16 @@ describe('nondimensional view (Hastings & Powell 1991 scaling)', () => {
       expect(rel(lake.series.daphnia![k]! / S.daphnia, bench.series.y![k]!)).toBeLessThan(1e-8);
       expect(rel(lake.series.perch![k]! / S.perch, bench.series.z![k]!)).toBeLessThan(1e-8);
     });
+  });
+});
+
+describe('the /equilibria computation', () => {
+  it('answers the contract shape for the contract example and rejects bad bodies with pointers', () => {
+    const res = computeEquilibria({ model: B.model });
+    expect(equilibriaResponseSchema.safeParse(res).success).toBe(true);
+    expect(res.equilibria.some((q) => q.kind === 'interior' && q.feasible)).toBe(true);
+    expect(() => computeEquilibria({ model: { ...B.model, levels: [] } })).toThrow(
+      ModelValidationError,
+    );
   });
 });
