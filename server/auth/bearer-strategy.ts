@@ -4,6 +4,7 @@ import { Strategy as BearerStrategy } from 'passport-http-bearer';
 import { ProblemError } from '../http/problem';
 import type { KeysService } from '../keys/keys-service';
 import type { KeyPrincipal } from './key-principal';
+import { requestOrigin } from './request-origin';
 
 /** Name the strategy is registered under. */
 export const KEY_STRATEGY = 'tropline-key';
@@ -20,7 +21,7 @@ export function keyAuthenticator(keys: KeysService): passport.Authenticator {
     new BearerStrategy(
       { passReqToCallback: true },
       (req: Request, token: string, done: (err: unknown, user?: KeyPrincipal) => void) => {
-        keys.authenticate(token, req.headers.origin).then(
+        keys.authenticate(token, requestOrigin(req)).then(
           (principal) => done(null, principal),
           (err: unknown) => done(err),
         );

@@ -5,6 +5,7 @@ import type { KeysService } from '../keys/keys-service';
 import { authenticateKey, keyAuthenticator } from './bearer-strategy';
 import { allowOrigin } from './key-cors';
 import { setPrincipal } from './key-principal';
+import { requestOrigin } from './request-origin';
 
 /** Builds `requireKey(scope)` middlewares over one keys service. */
 export type KeyGuard = (scope: Scope) => RequestHandler;
@@ -17,7 +18,7 @@ export type KeyGuard = (scope: Scope) => RequestHandler;
 export function keyGuard(keys: KeysService, now: () => number): KeyGuard {
   const authenticator = keyAuthenticator(keys);
   return (scope) => async (req, res, next) => {
-    const origin = req.headers.origin;
+    const origin = requestOrigin(req);
     let principal;
     try {
       principal = await authenticateKey(authenticator, req, res);

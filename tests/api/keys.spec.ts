@@ -131,6 +131,23 @@ describe('API keys', () => {
     expect(pre.headers['access-control-allow-origin']).toBeUndefined();
   });
 
+  it('takes a same-origin GET, which browsers send without Origin, as coming from this host', async () => {
+    // Fetch standard: Origin is omitted on same-origin GETs; Sec-Fetch-Site says same-origin.
+    // The job progress stream and job polling of the demo portal are such requests.
+    const sameOrigin = () =>
+      h
+        .call('get', '/jobs/00000000000000000000000000000000', h.demo.browserKey)
+        .set('Host', new URL(DEMO_ORIGIN).host);
+    const listed = await sameOrigin().set('Sec-Fetch-Site', 'same-origin');
+    expect(listed.status).toBe(404); // authenticated: the job simply does not exist
+    await sameOrigin().set('Sec-Fetch-Site', 'cross-site').expect(403);
+    await h
+      .call('get', '/jobs/00000000000000000000000000000000', h.demo.browserKey)
+      .set('Host', 'elsewhere.example')
+      .set('Sec-Fetch-Site', 'same-origin')
+      .expect(403);
+  });
+
   it('refuses a server key without the route’s scope', async () => {
     const { token } = (
       await h
