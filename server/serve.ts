@@ -1,7 +1,9 @@
-import type { Server } from 'node:http';
+import { STATUS_CODES, type Server } from 'node:http';
+import type { Duplex } from 'node:stream';
 import type { AddressInfo } from 'node:net';
 import type { Config } from './config';
 import { createApp, type TroplineApp } from './create-app';
+import { ProblemError } from './http/problem';
 
 /** A listening Tropline server. */
 export interface RunningServer {
@@ -19,6 +21,35 @@ export class StartupError extends Error {
 }
 
 /**
+ * Node answers a request head it cannot parse (too large, malformed) itself, before Express, with
+ * a bare status line; this answers the same statuses as problem documents, as every error is.
+ */
+function answerClientError(err: NodeJS.ErrnoException, socket: Duplex): void {
+  if (err.code === 'ECONNRESET' || !socket.writable) {
+    socket.destroy();
+    return;
+  }
+  const [status, slug, title] =
+    err.code === 'HPE_HEADER_OVERFLOW'
+      ? [431, 'headers-too-large', 'The request head is too large']
+      : err.code === 'ERR_HTTP_REQUEST_TIMEOUT'
+        ? [408, 'request-timeout', 'The request took too long to arrive']
+        : [400, 'bad-request', 'The request could not be parsed'];
+  const body = JSON.stringify(
+    new ProblemError(
+      status,
+      slug,
+      title,
+      'The URL and headers together exceed 16 KB, or are not ' + 'valid HTTP.',
+    ).toDocument(),
+  );
+  socket.end(
+    `HTTP/1.1 ${status} ${STATUS_CODES[status]}\r\nContent-Type: application/problem+json\r\n` +
+      `Content-Length: ${Buffer.byteLength(body)}\r\nConnection: close\r\n\r\n${body}`,
+  );
+}
+
+/**
  * Prepares the database, then listens on `config.port`. Resolves once the socket is bound.
  */
 export async function serve(config: Config): Promise<RunningServer> {
@@ -33,6 +64,7 @@ export async function serve(config: Config): Promise<RunningServer> {
     throw new StartupError(`cannot prepare the database ${config.sqliteFile}: ${String(err)}`);
   }
   const server = app.listen(config.port);
+  server.on('clientError', answerClientError);
   // Requests that compute are bounded server-side; these stop slow clients holding sockets.
   server.requestTimeout = 60_000;
   server.headersTimeout = 15_000;

@@ -103,6 +103,15 @@ function fromParserError(err: BodyParserError): ProblemError | undefined {
     case 'charset.unsupported':
       return new ProblemError(415, 'unsupported-encoding', 'Unsupported encoding', err.message);
     default:
+      // The router cannot decode a path parameter (`%ED%A0%80`): the client's fault, not ours.
+      if (err instanceof URIError && err.status === 400) {
+        return new ProblemError(
+          400,
+          'bad-path',
+          'The path is not valid',
+          'A path segment is not valid percent-encoded UTF-8.',
+        );
+      }
       return undefined;
   }
 }
