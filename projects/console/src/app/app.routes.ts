@@ -41,10 +41,34 @@ export const routes: Routes = [
         loadComponent: () => import('./home/home-page').then((m) => m.HomePage),
       },
       {
+        path: 'scenarios',
+        title: title('Scenarios'),
+        canActivate: [requireAction('scenarios:read')],
+        loadComponent: () => import('./scenarios/scenarios-page').then((m) => m.ScenariosPage),
+      },
+      {
+        path: 'scenarios/new',
+        title: title('New scenario'),
+        canActivate: [requireAction('scenarios:write')],
+        loadComponent: () => import('./scenarios/new-scenario-page').then((m) => m.NewScenarioPage),
+      },
+      {
+        path: 'scenarios/:id',
+        title: title('Scenario'),
+        canActivate: [requireAction('scenarios:read')],
+        loadComponent: () => import('./scenarios/scenario-page').then((m) => m.ScenarioPage),
+      },
+      {
         path: 'keys',
         title: title('API keys'),
         canActivate: [requireAction('keys:read')],
         loadComponent: () => import('./keys/keys-page').then((m) => m.KeysPage),
+      },
+      {
+        path: 'usage',
+        title: title('Usage and quota'),
+        canActivate: [requireAction('usage:read')],
+        loadComponent: () => import('./usage/usage-page').then((m) => m.UsagePage),
       },
       {
         path: 'members',

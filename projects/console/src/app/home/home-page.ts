@@ -7,6 +7,8 @@ import { DevMailboxProbe } from '../session/dev-mailbox-probe';
 import { navFor, ROLE_LABELS } from '../shell/console-nav';
 
 const BLURBS: Record<string, string> = {
+  '/scenarios': 'Build, calibrate and publish the food-chain scenarios your portal shows.',
+  '/usage': "This month's compute units against the quota, per day, key and endpoint.",
   '/keys': 'Issue, rotate and revoke the keys your portal and systems call the API with.',
   '/members': 'See who works in this tenant and with which role; invite colleagues.',
   '/audit': 'Who did what and when: sign-ins, keys, members and more.',

@@ -8,13 +8,15 @@ describe('navFor', () => {
   it('shows admins every page and viewers only what they may read', () => {
     expect(paths('admin', true)).toEqual([
       '/',
+      '/scenarios',
       '/keys',
+      '/usage',
       '/members',
       '/audit',
       '/mailbox',
       '/status',
     ]);
-    expect(paths('viewer', false)).toEqual(['/', '/members', '/status']);
+    expect(paths('viewer', false)).toEqual(['/', '/scenarios', '/usage', '/members', '/status']);
     expect(paths(undefined, false)).toEqual(['/', '/status']);
   });
 });

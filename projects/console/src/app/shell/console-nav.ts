@@ -15,7 +15,9 @@ export interface NavItem {
 /** Every page of the console, in the order the navigation lists them. */
 export const NAV_ITEMS: readonly NavItem[] = [
   { path: '/', label: 'Overview', icon: 'home' },
+  { path: '/scenarios', label: 'Scenarios', icon: 'ssid_chart', needs: 'scenarios:read' },
   { path: '/keys', label: 'API keys', icon: 'key', needs: 'keys:read' },
+  { path: '/usage', label: 'Usage and quota', icon: 'data_usage', needs: 'usage:read' },
   { path: '/members', label: 'Members', icon: 'group', needs: 'members:read' },
   { path: '/audit', label: 'Audit trail', icon: 'history', needs: 'audit:read' },
   { path: '/mailbox', label: 'Development mailbox', icon: 'mail', devOnly: true },
