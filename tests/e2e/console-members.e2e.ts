@@ -104,6 +104,8 @@ describe('console: members, invitations and roles', () => {
     const offered = await nav.locator('[matListItemTitle]').allTextContents();
     expect(offered.map((t) => t.trim())).toEqual([
       'Overview',
+      'Scenarios',
+      'Usage and quota',
       'Members',
       'Development mailbox',
       'Service status',
