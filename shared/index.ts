@@ -98,8 +98,10 @@ export {
   ENGINE_LIMITS,
 } from './contract/limits';
 export {
-  /** zod schema of the projection request body. */
+  /** zod schema of the projection request body (model left loose; see the next). */
   projectionRequestSchema,
+  /** The projection request body with the model schema spelled out (for OpenAPI). */
+  projectionRequestBodySchema,
   /** zod schema of an initial state record (checked against the model separately). */
   initialStateSchema,
   /** Validates a whole projection request; pointers relative to the body. */

@@ -17,6 +17,7 @@ const TOL = 1e-8;
 const ATOL = absoluteFloor(TOL, [1, 1, 1])[0]!;
 const HORIZON = 10_000;
 const TRANSIENT = 5_000;
+const REPEATS = 7;
 const DT = 0.5; // sampling of the top level over the window, for counting maxima
 const Y0 = [0.8, 0.2, 9];
 
@@ -161,9 +162,20 @@ const fmt = (v: number, d = 0) =>
   v.toLocaleString('en-US', { maximumFractionDigits: d, minimumFractionDigits: d });
 
 export async function run(): Promise<void> {
-  // One warm-up pass of each so the JIT has compiled both paths before timing.
-  engineTrajectory();
-  baselineTrajectory();
+  // Warm both paths up, then time the (short) trajectory several times, interleaved, and keep
+  // the median: one run is dominated by JIT compilation and by whatever else shares the CPU.
+  for (let i = 0; i < 3; i++) {
+    engineTrajectory();
+    baselineTrajectory();
+  }
+  const eRuns: Run[] = [];
+  const bRuns: Run[] = [];
+  for (let i = 0; i < REPEATS; i++) {
+    eRuns.push(engineTrajectory());
+    bRuns.push(baselineTrajectory());
+  }
+  const median = (runs: Run[]): Run =>
+    [...runs].sort((p, q) => p.wallMs - q.wallMs)[runs.length >> 1]!;
   const rows: string[][] = [];
   const add = (name: string, e: Run, b: Run) => {
     rows.push([
@@ -177,7 +189,7 @@ export async function run(): Promise<void> {
       `${fmt(b.wallMs / e.wallMs, 2)}×`,
     ]);
   };
-  add('trajectory t=0..10000, b1=3', engineTrajectory(), baselineTrajectory());
+  add(`trajectory t=0..10000, b1=3 (median of ${REPEATS})`, median(eRuns), median(bRuns));
   const es = engineSweep();
   const bs = baselineSweep();
   add('sweep b1=2.0..6.2 ×100', es, bs);

@@ -1,10 +1,13 @@
 import { z } from 'zod';
-import type { ChainModel } from '../model/chain-model';
+import { chainModelSchema, type ChainModel } from '../model/chain-model';
 import { validateModel } from '../model/model-validation';
 import type { ValidationResult } from '../model/validation-issue';
 
-/** zod schema of the equilibria request body (`POST /api/v1/equilibria`): `{ model }`. */
-export const equilibriaRequestSchema = z.strictObject({ model: z.unknown() });
+/**
+ * zod schema of the equilibria request body (`POST /api/v1/equilibria`): `{ model }`. Validate
+ * with {@link validateEquilibriaRequest} for body-relative pointers.
+ */
+export const equilibriaRequestSchema = z.strictObject({ model: chainModelSchema });
 
 /** A validated equilibria request. */
 export interface EquilibriaRequest {

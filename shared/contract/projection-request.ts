@@ -40,6 +40,16 @@ export const projectionRequestSchema = z.strictObject({
     .optional(),
 });
 
+/**
+ * The same body with the model's schema spelled out, for documentation (OpenAPI) and typing;
+ * validation goes through {@link validateProjectionRequest}, which adds the checks that need the
+ * model (initial ids) and precise pointers.
+ */
+export const projectionRequestBodySchema = projectionRequestSchema.extend({
+  model: chainModelSchema,
+  initial: z.record(z.string(), z.number()),
+});
+
 /** A validated projection request with defaults filled in. */
 export interface ProjectionRequest {
   /** The chain model. */
