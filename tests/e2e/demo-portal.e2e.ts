@@ -269,7 +269,7 @@ describe('demo portal in Chromium', () => {
   }, 150_000);
 
   it('serves the console in Tropline’s theme, reporting the API as up', async () => {
-    const { page, log } = await openPage(browser, served.base + '/console/');
+    const { page, log } = await openPage(browser, served.base + '/console/status');
     await expect.poll(() => page.locator('tc-status-page').textContent()).toContain('is answering');
     const toolbar = await page
       .locator('mat-toolbar')
