@@ -134,9 +134,15 @@ export class KeysRepository {
     return n > 0;
   }
 
-  /** Ends an old key's life at `until` and links it to its successor. */
+  /** Ends an old key's life at `until` and links it to its successor; false if it was already
+   * rotated or revoked (so concurrent rotations cannot both win). */
   async markRotated(id: string, to: string, until: string, trx: Knex.Transaction) {
-    await trx('api_keys').where({ id }).update({ rotated_to: to, expires_at: until });
+    const changed = await trx('api_keys')
+      .where({ id })
+      .whereNull('rotated_to')
+      .whereNull('revoked_at')
+      .update({ rotated_to: to, expires_at: until });
+    return changed === 1;
   }
 
   /** Whether any live browser key lists this origin (answers CORS preflights). */

@@ -96,6 +96,23 @@ export class KeysService {
 
   /** Issues a key; the plaintext is in the answer and nowhere else. */
   async issue(input: IssueKeyInput, actor: string): Promise<IssuedKey> {
+    const { record, token } = this.prepare(input);
+    await this.db.transaction(async (trx) => {
+      await this.repository.insert(record, trx);
+      await new AuditRepository(trx).record({
+        tenantId: input.tenantId,
+        actor,
+        action: 'key.issue',
+        target: record.id,
+        detail: { kind: record.kind, scopes: record.scopes, origins: record.origins },
+        at: record.createdAt,
+      });
+    });
+    return { key: info({ ...record, revokedAt: null, rotatedTo: null }), token };
+  }
+
+  /** Validates an issue request and generates the key; writes nothing. */
+  private prepare(input: IssueKeyInput) {
     const errors: FieldError[] = [];
     const origins: string[] = [];
     (input.origins ?? []).forEach((o, i) => {
@@ -142,18 +159,7 @@ export class KeysService {
       createdAt: new Date(nowMs).toISOString(),
       expiresAt: input.expiresAt ? new Date(Date.parse(input.expiresAt)).toISOString() : null,
     };
-    await this.db.transaction(async (trx) => {
-      await this.repository.insert(record, trx);
-      await new AuditRepository(trx).record({
-        tenantId: input.tenantId,
-        actor,
-        action: 'key.issue',
-        target: record.id,
-        detail: { kind: record.kind, scopes: record.scopes, origins },
-        at: record.createdAt,
-      });
-    });
-    return { key: info({ ...record, revokedAt: null, rotatedTo: null }), token: generated.token };
+    return { record, token: generated.token };
   }
 
   /** A tenant's keys. */
@@ -202,29 +208,40 @@ export class KeysService {
     const until = new Date(
       Math.min(nowMs + overlapSeconds * 1000, key.expiresAt ? Date.parse(key.expiresAt) : Infinity),
     ).toISOString();
-    const issued = await this.issue(
-      {
-        tenantId: key.tenantId,
-        kind: key.kind,
-        name: key.name,
-        scopes: key.scopes,
-        origins: key.origins,
-        perMinute: key.perMinute ?? undefined,
-      },
-      actor,
-    );
+    const { record, token } = this.prepare({
+      tenantId: key.tenantId,
+      kind: key.kind,
+      name: key.name,
+      scopes: key.scopes,
+      origins: key.origins,
+      perMinute: key.perMinute ?? undefined,
+    });
+    // One transaction and one audit event: a crash cannot leave a successor without the link
+    // to its predecessor, and two concurrent rotations cannot both succeed.
     await this.db.transaction(async (trx) => {
-      await this.repository.markRotated(key.id, issued.key.id, until, trx);
+      await this.repository.insert(record, trx);
+      if (!(await this.repository.markRotated(key.id, record.id, until, trx))) {
+        throw new ProblemError(
+          409,
+          'conflict',
+          'Cannot rotate',
+          `Key ${key.id} changed meanwhile.`,
+        );
+      }
       await new AuditRepository(trx).record({
         tenantId: key.tenantId,
         actor,
         action: 'key.rotate',
         target: key.id,
-        detail: { successor: issued.key.id, overlapUntil: until },
+        detail: { successor: record.id, overlapUntil: until },
         at: new Date(nowMs).toISOString(),
       });
     });
-    return { ...issued, previous: { id: key.id, expiresAt: until } };
+    return {
+      key: info({ ...record, revokedAt: null, rotatedTo: null }),
+      token,
+      previous: { id: key.id, expiresAt: until },
+    };
   }
 
   /**
