@@ -83,6 +83,9 @@ describe('the audit trail', () => {
       send(owner, 'post', `/console/keys/${keyId}/rotate`).send({}).expect(201),
     );
     expect(rotated.map((e) => e.action)).toEqual(['key.rotate']);
+    // Key events carry the address of the request that caused them, like every other event.
+    expect(issued[0]!.address).toBeTruthy();
+    expect(rotated[0]!.address).toBe(issued[0]!.address);
     const revoked = await eventsOf(() =>
       send(owner, 'delete', `/console/keys/${keyId}`).expect(204),
     );

@@ -5,7 +5,7 @@ import { issueKeyBody, rotateKeyBody } from '../keys/keys-routes';
 import type { KeysService } from '../keys/keys-service';
 import { requireTenantAction } from './access-guard';
 import { parseBody } from './parse-body';
-import { accessOf, userOf } from './signed-in-user';
+import { accessOf, clientAddress, userOf } from './signed-in-user';
 
 /** When each of a tenant's keys last made an admitted request, from the usage ledger. */
 async function lastUses(db: Knex, tenantId: string): Promise<Map<string, string>> {
@@ -46,6 +46,7 @@ export function consoleKeysRoutes(db: Knex, keys: KeysService): Router {
     const issued = await keys.issue(
       { ...body, tenantId: accessOf(req).tenantId },
       `user:${userOf(req).id}`,
+      clientAddress(req),
     );
     res.status(201).location(`/api/v1/console/keys/${issued.key.id}`);
     res.set('Cache-Control', 'no-store').json(issued);
@@ -54,14 +55,16 @@ export function consoleKeysRoutes(db: Knex, keys: KeysService): Router {
   router.post('/console/keys/:id/rotate', manage, async (req, res) => {
     const body = parseBody(rotateKeyBody, req.body);
     const key = await ownKey(accessOf(req).tenantId, String(req.params.id));
-    const rotated = await keys.rotate(key, body.overlapSeconds ?? 86_400, `user:${userOf(req).id}`);
+    const actor = `user:${userOf(req).id}`;
+    const overlap = body.overlapSeconds ?? 86_400;
+    const rotated = await keys.rotate(key, overlap, actor, clientAddress(req));
     res.status(201).location(`/api/v1/console/keys/${rotated.key.id}`);
     res.set('Cache-Control', 'no-store').json(rotated);
   });
 
   router.delete('/console/keys/:id', manage, async (req, res) => {
     const key = await ownKey(accessOf(req).tenantId, String(req.params.id));
-    await keys.revoke(key, `user:${userOf(req).id}`);
+    await keys.revoke(key, `user:${userOf(req).id}`, clientAddress(req));
     res.status(204).end();
   });
   return router;

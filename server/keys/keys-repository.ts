@@ -127,8 +127,8 @@ export class KeysRepository {
   }
 
   /** Marks a key revoked; returns whether a live key changed. */
-  async revoke(id: string, at: string): Promise<boolean> {
-    const n = await this.db('api_keys').where({ id }).whereNull('revoked_at').update({
+  async revoke(id: string, at: string, trx: Knex.Transaction | Knex = this.db): Promise<boolean> {
+    const n = await trx('api_keys').where({ id }).whereNull('revoked_at').update({
       revoked_at: at,
     });
     return n > 0;

@@ -64,7 +64,7 @@ export function keysRoutes(keys: KeysService, quotas: QuotasService, requireKey:
   router.post('/keys', ...guard, async (req, res) => {
     const p = principalOf(req);
     const body = parse(issueKeyBody, req.body);
-    const issued = await keys.issue({ ...body, tenantId: p.tenantId }, `key:${p.keyId}`);
+    const issued = await keys.issue({ ...body, tenantId: p.tenantId }, `key:${p.keyId}`, req.ip);
     res.status(201).location(`/api/v1/keys/${issued.key.id}`).set('Cache-Control', 'no-store');
     res.json(issued);
   });
@@ -73,14 +73,15 @@ export function keysRoutes(keys: KeysService, quotas: QuotasService, requireKey:
     const p = principalOf(req);
     const body = parse(rotateKeyBody, req.body);
     const key = await ownKey(p.tenantId, String(req.params.id));
-    const rotated = await keys.rotate(key, body.overlapSeconds ?? 86_400, `key:${p.keyId}`);
+    const rotated = await keys.rotate(key, body.overlapSeconds ?? 86_400, `key:${p.keyId}`, req.ip);
     res.status(201).location(`/api/v1/keys/${rotated.key.id}`).set('Cache-Control', 'no-store');
     res.json(rotated);
   });
 
   router.delete('/keys/:id', ...guard, async (req, res) => {
     const p = principalOf(req);
-    await keys.revoke(await ownKey(p.tenantId, String(req.params.id)), `key:${p.keyId}`);
+    const key = await ownKey(p.tenantId, String(req.params.id));
+    await keys.revoke(key, `key:${p.keyId}`, req.ip);
     res.status(204).end();
   });
   return router;

@@ -94,8 +94,11 @@ export class KeysService {
     this.repository = new KeysRepository(db);
   }
 
-  /** Issues a key; the plaintext is in the answer and nowhere else. */
-  async issue(input: IssueKeyInput, actor: string): Promise<IssuedKey> {
+  /**
+   * Issues a key; the plaintext is in the answer and nowhere else. `address` is the client's
+   * IP for the audit trail when a request caused it.
+   */
+  async issue(input: IssueKeyInput, actor: string, address?: string): Promise<IssuedKey> {
     const { record, token } = this.prepare(input);
     await this.db.transaction(async (trx) => {
       await this.repository.insert(record, trx);
@@ -106,6 +109,7 @@ export class KeysService {
         target: record.id,
         detail: { kind: record.kind, scopes: record.scopes, origins: record.origins },
         at: record.createdAt,
+        address,
       });
     });
     return { key: info({ ...record, revokedAt: null, rotatedTo: null }), token };
@@ -181,21 +185,25 @@ export class KeysService {
   }
 
   /** Revokes a key; the very next request with it is refused (no cache in between). */
-  async revoke(key: KeyRecord, actor: string): Promise<void> {
+  async revoke(key: KeyRecord, actor: string, address?: string): Promise<void> {
     const at = new Date(this.now()).toISOString();
-    if (await this.repository.revoke(key.id, at)) {
-      await new AuditRepository(this.db).record({
-        tenantId: key.tenantId,
-        actor,
-        action: 'key.revoke',
-        target: key.id,
-        at,
-      });
-    }
+    // The revocation and its audit event commit together or not at all.
+    await this.db.transaction(async (trx) => {
+      if (await this.repository.revoke(key.id, at, trx)) {
+        await new AuditRepository(trx).record({
+          tenantId: key.tenantId,
+          actor,
+          action: 'key.revoke',
+          target: key.id,
+          at,
+          address,
+        });
+      }
+    });
   }
 
   /** Issues a successor with the same powers; the old key keeps working for `overlapSeconds`. */
-  async rotate(key: KeyRecord, overlapSeconds: number, actor: string) {
+  async rotate(key: KeyRecord, overlapSeconds: number, actor: string, address?: string) {
     if (key.revokedAt || key.rotatedTo) {
       throw new ProblemError(
         409,
@@ -235,6 +243,7 @@ export class KeysService {
         target: key.id,
         detail: { successor: record.id, overlapUntil: until },
         at: new Date(nowMs).toISOString(),
+        address,
       });
     });
     return {
