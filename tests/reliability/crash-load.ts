@@ -132,6 +132,7 @@ export async function crashCycle(
   file: string,
   admin: string,
   ack: Acknowledged,
+  /** `killAfterMs` counts from the first dozen acknowledged writes. */
   opts: { writers: number; killAfterMs: number },
 ): Promise<{ report: CycleReport; restarted: LiveServer }> {
   const count = () => ack.issued.size + ack.revoked.size + ack.versions.length + ack.units;
@@ -147,6 +148,9 @@ export async function crashCycle(
   const writers = Array.from({ length: opts.writers }, () =>
     writer(server, admin, scenarioId, ack, tally, () => killed),
   );
+  // Kill mid-load whatever the machine's speed: once writes are flowing, then a while later.
+  const flowing = Date.now() + 30_000;
+  while (count() - before < 12 && Date.now() < flowing) await new Promise((r) => setTimeout(r, 20));
   await new Promise((r) => setTimeout(r, opts.killAfterMs));
   killed = true;
   await server.kill();
