@@ -466,6 +466,8 @@ export {
   applyChanges,
   /** Throws AnalysisBoundsError for an oversized comparison. */
   assertComparisonBounds,
+  /** Each level's quasi-extinction threshold in level order (defaults filled in). */
+  thresholdVector,
 } from './compare/compare-scenarios';
 export type {
   /** One scenario's outcome. */

@@ -1,14 +1,16 @@
-// The engine's analyses are not yet listed in @tropline/core's index (the analyses work appends
-// them there), so this adapter reaches them by module path and is not part of the published
-// testing entry: the library's own stories and specs pass it to the fake client. Once the index
-// lists them, these imports become `@tropline/core` and the fake uses it by default.
-import { validateComparisonRequest } from '@tropline/core/analyses-contract/comparison-contract';
-import { validateRegimeRequest } from '@tropline/core/analyses-contract/regime-contract';
-import { validateSweepRequest } from '@tropline/core/analyses-contract/sweep-contract';
-import { runScenario, thresholdVector } from '@tropline/core/compare/compare-scenarios';
-import { assessRegime } from '@tropline/core/regime/assess-regime';
-import { runSweepRange } from '@tropline/core/sweep/run-sweep';
-import { ModelValidationError, type ValidationResult } from '@tropline/core';
+// The engine's regime, sweep and comparison, run in the page for the fake client: stories,
+// specs and host apps' tests get the numbers the API would give, with no server.
+import {
+  assessRegime,
+  ModelValidationError,
+  runScenario,
+  runSweepRange,
+  thresholdVector,
+  validateComparisonRequest,
+  validateRegimeRequest,
+  validateSweepRequest,
+  type ValidationResult,
+} from '@tropline/core';
 import type { ComparisonResult, ScenarioOutcome, SweepPoint } from '@tropline/widgets';
 import type { AnalysisSteps, FakeAnalyses } from './fake-tropline-client';
 

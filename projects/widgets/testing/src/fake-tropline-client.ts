@@ -56,7 +56,7 @@ export interface FakeTroplineClientOptions {
   readonly failWith?: TroplineApiError;
   /** Whether calls never answer (to show loading states). */
   readonly neverAnswer?: boolean;
-  /** The analyses to compute with (regimes, sweeps, comparisons). */
+  /** The analyses to compute with (regimes, sweeps, comparisons), usually `ENGINE_ANALYSES`. */
   readonly analyses?: FakeAnalyses;
 }
 

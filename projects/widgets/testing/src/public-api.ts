@@ -10,6 +10,7 @@ export {
   type FakeRequests,
   type FakeTroplineClientOptions,
 } from './fake-tropline-client';
+export { ENGINE_ANALYSES } from './engine-analyses';
 export { TroplineChartHarness } from './chart-figure-harness';
 export { TrajectoryChartHarness } from './trajectory-chart-harness';
 export {
