@@ -24,7 +24,7 @@ function isLocal(url: string): boolean {
 async function openPage(
   browser: Browser,
   url: string,
-  beforeGoto: (page: Page) => void = () => undefined,
+  beforeGoto: (page: Page) => void | Promise<void> = () => undefined,
 ): Promise<{ page: Page; log: RequestLog }> {
   const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
   const log: RequestLog = { all: [], outside: [] };
@@ -39,9 +39,23 @@ async function openPage(
     }
   });
   const page = await context.newPage();
-  beforeGoto(page);
+  await beforeGoto(page);
   await page.goto(url, { waitUntil: 'networkidle' });
   return { page, log };
+}
+
+/** The mere's published scenario and the route its what-ifs go through. */
+const MERE = 'larchmere-brackenlow-mere';
+const MERE_PROJECTIONS = `/api/v1/published-scenarios/${MERE}/projections`;
+
+/** A what-if as the page sends it to the published route. */
+interface WhatIf {
+  changes: { pointer: string; value: number }[];
+}
+
+/** The algal growth rate a what-if asks for, or undefined when it leaves it published. */
+function growthOf(body: WhatIf): number | undefined {
+  return body.changes.find((c) => c.pointer === '/levels/0/growthRate')?.value;
 }
 
 interface ProjectionAnswer {
@@ -86,18 +100,31 @@ describe('demo portal in Chromium', () => {
     await served?.stop();
   });
 
-  it('draws the trajectory from the API’s numbers, in shipped fonts, all from localhost', async () => {
+  it('draws the published mere from the API’s numbers, in shipped fonts, all from localhost', async () => {
     let apiAnswer!: Promise<ProjectionAnswer>;
+    let scenario!: Promise<{ status: number; body: { publicId: string; horizon: number } }>;
     const { page, log } = await openPage(browser, served.base + '/demo/', (p) => {
+      scenario = p
+        .waitForResponse((res) => res.url().endsWith(`/api/v1/published-scenarios/${MERE}`), {
+          timeout: 30_000,
+        })
+        .then(async (res) => ({ status: res.status(), body: await res.json() }));
       apiAnswer = p
         .waitForResponse(
-          (res) => res.url().endsWith('/api/v1/projections') && res.request().method() === 'POST',
+          (res) => res.url().endsWith(MERE_PROJECTIONS) && res.request().method() === 'POST',
           { timeout: 30_000 },
         )
         .then(async (res) => ({ status: res.status(), body: await res.json() }));
     });
+    // The page read the published scenario, and projected it through the published route.
+    const published = await scenario;
+    expect(published.status).toBe(200);
+    expect(published.body.publicId).toBe(MERE);
     const answer = await apiAnswer;
     expect(answer.status).toBe(200);
+    expect(await page.locator('lla-home-page h2').last().textContent()).toContain(
+      `The next ${published.body.horizon} weeks`,
+    );
     expect(Object.keys(answer.body.series)).toEqual(['algae', 'daphnia', 'perch']);
 
     // The chart canvas exists and has been painted.
@@ -144,38 +171,38 @@ describe('demo portal in Chromium', () => {
     await page.screenshot({ path: resolve(ARTIFACTS, 'demo-portal.png'), fullPage: true });
   }, 120_000);
 
-  it('redraws the mere when a bounded parameter changes, and refuses one outside the bounds', async () => {
-    const sent: number[] = [];
+  it('redraws the mere when a published parameter changes, and refuses one outside its range', async () => {
+    const sent: WhatIf[] = [];
     let errors: string[] = [];
     const { page, log } = await openPage(browser, served.base + '/demo/', (p) => {
       errors = collectErrors(p);
       p.on('request', (req) => {
         if (req.url().endsWith('/api/v1/projections') && req.method() === 'POST') {
-          const body = req.postDataJSON() as { model: { levels: { carryingCapacity?: number }[] } };
-          sent.push(body.model.levels[0]!.carryingCapacity!);
+          throw new Error('the home page projected through the open route');
         }
+        if (req.url().endsWith(MERE_PROJECTIONS)) sent.push(req.postDataJSON() as WhatIf);
       });
     });
     const caption = page.locator('tropline-trajectory-chart figcaption');
     await expect.poll(() => caption.textContent()).toContain('ends at');
     const before = await caption.textContent();
-    expect(sent).toEqual([40]);
+    // The published scenario itself: no changes asked for.
+    expect(sent.map((b) => b.changes)).toEqual([[]]);
 
-    // Only what the publisher opened is editable: two fields, each with its published range.
+    // Only what the publisher opened is editable: three fields, each with its published range.
     const form = page.locator('tropline-parameter-form');
-    await expect.poll(() => form.locator('input[matinput]').count()).toBe(2);
-    const capacity = page.getByRole('spinbutton', { name: /most algae the water can hold/ });
-    await expect.poll(() => form.textContent()).toContain('20 – 60');
+    await expect.poll(() => form.locator('input[matinput]').count()).toBe(3);
+    const growth = page.getByRole('spinbutton', { name: /Algal growth \(nutrient load\)/ });
+    await expect.poll(() => form.textContent()).toContain('1 – 3');
 
-    // Within the bounds: a new projection is asked for, answered, and drawn.
+    // Within the range: a what-if is sent to the published route, answered, and drawn.
     const answered = page.waitForResponse(
       (res) =>
-        res.url().endsWith('/api/v1/projections') &&
-        (res.request().postDataJSON() as { model: { levels: { carryingCapacity?: number }[] } })
-          .model.levels[0]!.carryingCapacity === 25,
+        res.url().endsWith(MERE_PROJECTIONS) &&
+        growthOf(res.request().postDataJSON() as WhatIf) === 2.5,
       { timeout: 30_000 },
     );
-    await capacity.fill('25');
+    await growth.fill('2.5');
     const res = await answered;
     expect(res.status()).toBe(200);
     const series = ((await res.json()) as ProjectionAnswer['body']).series;
@@ -185,23 +212,22 @@ describe('demo portal in Chromium', () => {
     await expect.poll(() => caption.textContent()).toContain(`ends at ${perchEnd}`);
     expect(await caption.textContent()).not.toBe(before);
 
-    // Outside the bounds: refused on the spot with a message, and never sent.
-    await capacity.fill('80');
-    await capacity.press('Tab');
+    // Outside the range: refused on the spot by the form with a message, and never sent.
+    await growth.fill('4');
+    await growth.press('Tab');
     const message = form.locator('mat-error');
-    await expect.poll(() => message.textContent()).toContain('Must be at most 60');
-    expect(await capacity.getAttribute('aria-invalid')).toBe('true');
+    await expect.poll(() => message.textContent()).toContain('Must be at most 3');
+    expect(await growth.getAttribute('aria-invalid')).toBe('true');
     const back = page.waitForResponse(
       (r) =>
-        r.url().endsWith('/api/v1/projections') &&
-        (r.request().postDataJSON() as { model: { levels: { carryingCapacity?: number }[] } }).model
-          .levels[0]!.carryingCapacity === 45,
+        r.url().endsWith(MERE_PROJECTIONS) &&
+        growthOf(r.request().postDataJSON() as WhatIf) === 1.5,
       { timeout: 30_000 },
     );
-    await capacity.fill('45');
+    await growth.fill('1.5');
     expect((await back).status()).toBe(200);
-    expect(sent).not.toContain(80);
-    expect(sent).toContain(45);
+    expect(sent.map(growthOf)).not.toContain(4);
+    expect(sent.map(growthOf)).toContain(1.5);
 
     await expect
       .poll(() => page.locator('lla-public-caution').textContent())
@@ -210,6 +236,76 @@ describe('demo portal in Chromium', () => {
     expect(log.outside).toEqual([]);
     await page.screenshot({ path: resolve(ARTIFACTS, 'demo-portal-bounded.png'), fullPage: true });
   }, 120_000);
+
+  it('has the server refuse a value outside the published range, naming the field, and shows why', async () => {
+    const { page, log } = await openPage(browser, served.base + '/demo/');
+    await expect
+      .poll(() => page.locator('tropline-trajectory-chart figcaption').textContent())
+      .toContain('ends at');
+
+    // The server path, past the form: the page's own browser key, from the page's origin.
+    const refused = await page.evaluate(async (route) => {
+      const config = (await (await fetch('runtime-config.json')).json()) as {
+        apiUrl: string;
+        apiKey: string;
+      };
+      const res = await fetch(config.apiUrl + route.slice('/api/v1'.length), {
+        method: 'POST',
+        headers: { Authorization: `Bearer ${config.apiKey}`, 'Content-Type': 'application/json' },
+        body: JSON.stringify({ changes: [{ pointer: '/levels/0/growthRate', value: 4 }] }),
+      });
+      return {
+        status: res.status,
+        type: res.headers.get('content-type'),
+        body: (await res.json()) as { errors: { pointer: string; message: string }[] },
+      };
+    }, MERE_PROJECTIONS);
+    expect(refused.status).toBe(400);
+    expect(refused.type).toContain('application/problem+json');
+    expect(refused.body.errors).toEqual([
+      { pointer: '/changes/0/value', message: "must be between 1 and 3, the publisher's range" },
+    ]);
+
+    // The page's own what-if, altered on its way out to ask for the same value: the server
+    // refuses it and the panel says which setting and why, in the publisher's words.
+    await page.route('**' + MERE_PROJECTIONS, async (route) => {
+      const body = route.request().postDataJSON() as WhatIf;
+      const changes = body.changes.map((c) =>
+        c.pointer === '/levels/0/growthRate' ? { ...c, value: 4 } : c,
+      );
+      await route.continue({ postData: JSON.stringify({ ...body, changes }) });
+    });
+    const answer = page.waitForResponse((r) => r.url().endsWith(MERE_PROJECTIONS), {
+      timeout: 30_000,
+    });
+    await page.getByRole('spinbutton', { name: /Algal growth \(nutrient load\)/ }).fill('2.5');
+    expect((await answer).status()).toBe(400);
+    const alert = page.locator('tropline-projection-panel [role="alert"]');
+    await expect
+      .poll(() => alert.textContent())
+      .toContain("Algal growth (nutrient load): must be between 1 and 3, the publisher's range");
+    expect(await alert.textContent()).toContain('/levels/0/growthRate');
+    expect(log.outside).toEqual([]);
+    await page.screenshot({ path: resolve(ARTIFACTS, 'demo-portal-refused.png'), fullPage: true });
+  }, 120_000);
+
+  it('says so on the page when the scenario it names is not published', async () => {
+    let errors: string[] = [];
+    const { page, log } = await openPage(browser, served.base + '/demo/', async (p) => {
+      errors = collectErrors(p);
+      // The page's read of its scenario is sent on to an id the server has never published.
+      await p.route(`**/api/v1/published-scenarios/${MERE}`, (route) =>
+        route.continue({ url: route.request().url().replace(MERE, 'larchmere-no-such-place') }),
+      );
+    });
+    const alert = page.locator('lla-published-status [role="alert"]');
+    await expect.poll(() => alert.textContent()).toContain('No such published scenario');
+    expect(await alert.textContent()).toContain(`No published scenario is called “${MERE}”`);
+    expect(await page.locator('tropline-projection-panel').count()).toBe(0);
+    // The browser reports the 404 itself on the console; nothing else went wrong.
+    expect(errors.filter((e) => !/status of 404/.test(e))).toEqual([]);
+    expect(log.outside).toEqual([]);
+  }, 60_000);
 
   it('compares the deer culls on the harvest page from the API’s comparison job', async () => {
     let errors: string[] = [];

@@ -137,11 +137,11 @@ describe('custom elements on a plain HTML page in Chromium', () => {
       .poll(() => page.locator('tropline-projection tropline-caution-notice').textContent())
       .toContain('not forecasts');
 
-    // The comparison element runs its job and fills its table.
+    // The comparison element runs its job over the moor's published ranges and fills its table.
     const comparison = page.locator('tropline-comparison');
     await expect
       .poll(() => comparison.locator('table').last().textContent(), { timeout: 60_000 })
-      .toContain('Cull 15 % of deer a year');
+      .toContain('Deer mortality (culling): highest allowed (0.5)');
 
     // DOM events out: the page's own script counted the elements' tropline-result events.
     const status = page.locator('#lla-events');
@@ -185,6 +185,11 @@ describe('custom elements on a plain HTML page in Chromium', () => {
             const { status, title } = (e as CustomEvent<{ status: number; title: string }>).detail;
             requestAnimationFrame(() => done({ status, title, text: el.textContent ?? '' }));
           });
+          // The page's own API and browser key, so the API itself answers that it is unknown.
+          const onPage = document.querySelector('tropline-projection')!;
+          for (const name of ['api-url', 'api-key']) {
+            el.setAttribute(name, onPage.getAttribute(name)!);
+          }
           el.setAttribute('scenario', 'no-such-place');
           document.querySelector('main')!.append(el);
         }),

@@ -2,11 +2,11 @@ import { NgComponentOutlet } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed } from '@angular/core';
 import { ScenarioComparison } from '@tropline/widgets';
 import { ElementHost } from './element-host';
-import { comparisonRequest } from './published-scenarios';
+import { boundsComparison } from './published-analyses';
 
 /**
- * `<tropline-comparison>`: the scenario comparison of a published scenario's management
- * alternatives against its baseline, with the cautions.
+ * `<tropline-comparison>`: a published scenario against its own public ranges (each public
+ * parameter at its lowest and highest allowed value), with the cautions.
  */
 @Component({
   selector: 'tropline-comparison-element',
@@ -21,8 +21,17 @@ import { comparisonRequest } from './published-scenarios';
           environmentInjector: environment()
         "
       />
+    } @else if (published()) {
+      <p class="tropline-element__missing" role="alert">
+        This published scenario lets the public change nothing, so there is nothing to compare.
+      </p>
+    } @else if (refusal(); as r) {
+      <div class="tropline-element__missing" role="alert">
+        <strong>{{ r.title }}</strong>
+        <p>{{ r.message }}</p>
+      </div>
     } @else {
-      <p class="tropline-element__missing" role="alert">{{ reason() }}</p>
+      <p class="tropline-element__loading" role="status">Loading the published scenario…</p>
     }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -32,12 +41,7 @@ export class ComparisonElement extends ElementHost {
   protected readonly comparison = ScenarioComparison;
   protected readonly inputs = computed(() => {
     const s = this.published();
-    const request = s && comparisonRequest(s);
+    const request = s && boundsComparison(s);
     return request ? { model: s.model, request } : undefined;
   });
-  protected readonly reason = computed(() =>
-    this.published()
-      ? 'This published scenario has no management alternatives to compare.'
-      : this.missingMessage(),
-  );
 }

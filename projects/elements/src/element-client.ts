@@ -12,6 +12,7 @@ import {
   type TroplineApiError,
 } from '@tropline/widgets';
 import { type MonoTypeOperatorFunction, type Observable, tap } from 'rxjs';
+import { boundProjection, PUBLISHED_BINDING, PublishedScenarioApi } from './published-scenario';
 
 /** What an element reports as a DOM event when the API answers. */
 export type ElementResult =
@@ -52,15 +53,21 @@ export function refusalOf(error: TroplineApiError): ElementRefusal {
 }
 
 /**
- * The widgets' client, unchanged, with every answer and refusal also reported to the element
- * that owns it. The widgets expose no outputs for their results, so the element listens here.
+ * The widgets' client with every answer and refusal also reported to the element that owns it
+ * (the widgets expose no outputs for their results, so the element listens here), and its
+ * projections sent through the published scenario's route, where the server enforces the
+ * publisher's ranges.
  */
 @Injectable()
 export class ElementClient extends TroplineClient {
   private readonly reporter = inject(ELEMENT_REPORTER);
+  private readonly published = inject(PublishedScenarioApi);
+  private readonly binding = inject(PUBLISHED_BINDING, { optional: true });
 
+  /** Through the published route when the element shows a published scenario. */
   override project(request: ProjectionRequestInput): Observable<ProjectionResponse> {
-    return super.project(request).pipe(this.report((value) => ({ kind: 'projection', value })));
+    const source = boundProjection(this.published, this.binding, request) ?? super.project(request);
+    return source.pipe(this.report((value) => ({ kind: 'projection', value })));
   }
 
   override regime(request: RegimeRequest): Observable<RegimeResponse> {

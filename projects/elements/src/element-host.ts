@@ -4,18 +4,27 @@ import {
   Directive,
   effect,
   EnvironmentInjector,
+  inject,
   input,
   output,
 } from '@angular/core';
-import { inject } from '@angular/core';
+import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { provideTropline, TroplineClient } from '@tropline/widgets';
+import { switchMap } from 'rxjs';
 import {
   ELEMENT_REPORTER,
   ElementClient,
+  refusalOf,
   type ElementRefusal,
   type ElementResult,
 } from './element-client';
-import { findPublishedScenario, type PublishedScenario } from './published-scenarios';
+import {
+  missingScenarioMessage,
+  PUBLISHED_BINDING,
+  PublishedScenarioApi,
+  type PublishedScenario,
+  type PublishedState,
+} from './published-scenario';
 
 /** Detail of `tropline-ready`: which published scenario the element shows. */
 export interface ElementReady {
@@ -53,9 +62,6 @@ export abstract class ElementHost {
   readonly refused = output<ElementRefusal>({ alias: 'tropline-refused' });
   /* eslint-enable @angular-eslint/no-output-rename */
 
-  /** The published scenario named by `scenario`, or undefined. */
-  protected readonly published = computed(() => findPublishedScenario(this.scenario()));
-
   /** An injector with the widgets' providers for this element's API and key. */
   protected readonly environment = computed(() =>
     createEnvironmentInjector(
@@ -72,6 +78,8 @@ export abstract class ElementHost {
             refused: (r: ElementRefusal) => this.refused.emit(r),
           },
         },
+        PublishedScenarioApi,
+        { provide: PUBLISHED_BINDING, useValue: { published: () => this.published() } },
         { provide: TroplineClient, useClass: ElementClient },
       ],
       this.parent,
@@ -82,6 +90,26 @@ export abstract class ElementHost {
   /** The client of the current injector, for elements that call the API themselves. */
   protected readonly client = computed(() => this.environment().get(TroplineClient));
 
+  /** The published scenario named by `scenario`, as the API serves it: loading, ready, refused. */
+  protected readonly state = toSignal(
+    toObservable(
+      computed(() => ({ api: this.environment().get(PublishedScenarioApi), id: this.scenario() })),
+    ).pipe(switchMap(({ api, id }) => api.load(id))),
+    { initialValue: { kind: 'loading', publicId: '' } as PublishedState },
+  );
+
+  /** The published scenario once loaded, or undefined. */
+  protected readonly published = computed(() => {
+    const s = this.state();
+    return s.kind === 'ready' ? s.scenario : undefined;
+  });
+
+  /** The heading and sentence shown when the scenario cannot be shown. */
+  protected readonly refusal = computed(() => {
+    const s = this.state();
+    return s.kind === 'refused' ? s.error : undefined;
+  });
+
   constructor() {
     // An injector replaced by new attributes is destroyed once the widget has moved on to the
     // new one (after this render), and the last one when the element leaves the page.
@@ -90,25 +118,16 @@ export abstract class ElementHost {
       onCleanup(() => queueMicrotask(() => env.destroy()));
     });
     effect(() => {
-      const s = this.published();
-      if (s) this.ready.emit({ scenario: s.id, title: s.title });
-      else if (this.scenario()) {
-        this.refused.emit({
-          status: 404,
-          title: 'No such published scenario',
-          message: this.missingMessage(),
-          fieldErrors: [],
-        });
-      }
+      const s = this.state();
+      if (s.kind === 'ready')
+        this.ready.emit({ scenario: s.scenario.publicId, title: s.scenario.name });
+      else if (s.kind === 'refused' && s.publicId) this.refused.emit(refusalOf(s.error));
     });
   }
 
-  /** The sentence shown when `scenario` names nothing published. */
+  /** The sentence shown when `scenario` names nothing (before any request is made). */
   protected missingMessage(): string {
-    const id = this.scenario();
-    return id
-      ? `No published scenario is called “${id}”. Check the scenario attribute.`
-      : 'This element needs a scenario attribute naming a published scenario.';
+    return missingScenarioMessage(this.scenario());
   }
 }
 

@@ -4,11 +4,11 @@ import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { BifurcationChart, RegimeSummary, type TroplineApiError } from '@tropline/widgets';
 import { catchError, map, of, switchMap } from 'rxjs';
 import { ElementHost } from './element-host';
-import { sweepRequest } from './published-scenarios';
+import { boundsSweep } from './published-analyses';
 
 /**
  * `<tropline-long-run>`: a published scenario's long-run behaviour — the regime summary in
- * plain words (with the cautions) and the bifurcation chart the publisher chose.
+ * plain words (with the cautions) and a bifurcation chart across the first public range.
  */
 @Component({
   selector: 'tropline-long-run-element',
@@ -33,8 +33,13 @@ import { sweepRequest } from './published-scenarios';
           "
         />
       }
+    } @else if (refusal(); as r) {
+      <div class="tropline-element__missing" role="alert">
+        <strong>{{ r.title }}</strong>
+        <p>{{ r.message }}</p>
+      </div>
     } @else {
-      <p class="tropline-element__missing" role="alert">{{ missingMessage() }}</p>
+      <p class="tropline-element__loading" role="status">Loading the published scenario…</p>
     }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -78,7 +83,7 @@ export class LongRunElement extends ElementHost {
   }));
   protected readonly chartInputs = computed(() => {
     const s = this.published();
-    const request = s && sweepRequest(s);
-    return request ? { request, label: `Long-run peaks: ${s.title}` } : undefined;
+    const request = s && boundsSweep(s);
+    return request ? { request, label: `Long-run peaks: ${s.name}` } : undefined;
   });
 }

@@ -2,10 +2,13 @@ import { NgComponentOutlet } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed } from '@angular/core';
 import { ProjectionPanel } from '@tropline/widgets';
 import { ElementHost } from './element-host';
+import { projectionSamples } from './published-analyses';
+import { publishedBounds } from './published-scenario';
 
 /**
  * `<tropline-projection>`: the projection panel (bounded parameter form, trajectory chart, phase
- * portrait, regime summary and cautions) for one published scenario.
+ * portrait, regime summary and cautions) for one published scenario, loaded from the API by
+ * its public id; what-ifs go through the scenario's published projections route.
  */
 @Component({
   selector: 'tropline-projection-element',
@@ -20,8 +23,13 @@ import { ElementHost } from './element-host';
           environmentInjector: environment()
         "
       />
+    } @else if (refusal(); as r) {
+      <div class="tropline-element__missing" role="alert">
+        <strong>{{ r.title }}</strong>
+        <p>{{ r.message }}</p>
+      </div>
     } @else {
-      <p class="tropline-element__missing" role="alert">{{ missingMessage() }}</p>
+      <p class="tropline-element__loading" role="status">Loading the published scenario…</p>
     }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -35,8 +43,8 @@ export class ProjectionElement extends ElementHost {
       model: s.model,
       initial: { ...s.initial },
       horizon: s.horizon,
-      samples: s.samples,
-      bounds: s.bounds,
+      samples: projectionSamples(s),
+      bounds: publishedBounds(s),
     };
   });
 }

@@ -6,9 +6,13 @@ import {
 import { provideRouter, withComponentInputBinding } from '@angular/router';
 import { provideTropline } from '@tropline/widgets';
 import type { RuntimeConfig } from '../runtime-config';
+import { PublishedScenarioApi } from './common/published';
 import { routes } from './app.routes';
 
-/** The portal's providers: routing and the Tropline widgets bound to the portal's browser key. */
+/**
+ * The portal's providers: routing, the Tropline widgets bound to the portal's browser key, and
+ * the reader of the published scenarios its pages show (same API, same key).
+ */
 export function appConfig(runtime: RuntimeConfig): ApplicationConfig {
   return {
     providers: [
@@ -16,6 +20,7 @@ export function appConfig(runtime: RuntimeConfig): ApplicationConfig {
       provideZonelessChangeDetection(),
       provideRouter(routes, withComponentInputBinding()),
       provideTropline({ apiUrl: runtime.apiUrl, apiKey: runtime.apiKey }),
+      PublishedScenarioApi,
     ],
   };
 }

@@ -1,26 +1,48 @@
-import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
-import { toSignal } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import {
   BifurcationChart,
   RegimeSummary,
-  TroplineClient,
   type RegimeResponse,
+  type SweepRequest,
+  TroplineClient,
   type TroplineApiError,
 } from '@tropline/widgets';
 import type { Equilibrium } from '@tropline/core';
-import { catchError, map, of } from 'rxjs';
+import { catchError, map, of, switchMap } from 'rxjs';
 import { PublicCaution } from '../common/public-caution';
-import { publishedScenario, sweepRequest } from '../common/published';
+import {
+  BRACKENLOW_MERE,
+  publishedScenario,
+  PublishedStatus,
+  readyScenario,
+} from '../common/published';
 
 interface Assessment {
   readonly regime?: RegimeResponse;
   readonly error?: TroplineApiError;
 }
 
+/**
+ * The sweep this page draws: page content, not part of the published scenario. The water
+ * fleas' handling time sets the benchmark's b1 (b1 = 20·h here): 0.1–0.31 week spans
+ * b1 = 2.0–6.2. Transient and window are the benchmark's 2000 and 1000 time units at half
+ * length, in weeks (the lake's time scale is 1/r = half a week).
+ */
+const MERE_HANDLING_TIME_SWEEP: Omit<SweepRequest, 'model' | 'initial'> = {
+  parameter: '/levels/1/handlingTime',
+  from: 0.1,
+  to: 0.31,
+  steps: 36,
+  observe: 'perch',
+  transient: 500,
+  window: 250,
+};
+
 /** Long-run behaviour: whether the mere settles, cycles or turns chaotic, and why it matters. */
 @Component({
   selector: 'lla-long-run-page',
-  imports: [BifurcationChart, RegimeSummary, PublicCaution],
+  imports: [BifurcationChart, RegimeSummary, PublicCaution, PublishedStatus],
   template: `
     <h1>Brackenlow Mere in the long run</h1>
     <p class="lla-lede">
@@ -31,23 +53,28 @@ interface Assessment {
       horizon.
     </p>
     <lla-public-caution />
-    <h2>What the mere does today</h2>
-    <tropline-regime-summary
-      [model]="scenario.model"
-      [regime]="assessment().regime"
-      [error]="assessment().error"
-      [equilibria]="equilibria()"
-    />
-    <h2>How the answer changes with the water fleas' feeding</h2>
-    <p class="lla-lede">
-      Each column of dots below is one possible value of how long a water flea takes to eat what it
-      catches. The dots are the peaks perch reach in the long run: one dot means steady numbers, a
-      few dots mean cycles, a smear of dots means chaos. The marked line is the mere's value today.
-    </p>
-    <tropline-bifurcation-chart
-      [request]="sweep"
-      label="Long-run perch peaks against water-flea handling time"
-    />
+    @if (published(); as s) {
+      <h2>What the mere does today</h2>
+      <tropline-regime-summary
+        [model]="s.model"
+        [regime]="assessment().regime"
+        [error]="assessment().error"
+        [equilibria]="equilibria()"
+      />
+      <h2>How the answer changes with the water fleas' feeding</h2>
+      <p class="lla-lede">
+        Each column of dots below is one possible value of how long a water flea takes to eat what
+        it catches. The dots are the peaks perch reach in the long run: one dot means steady
+        numbers, a few dots mean cycles, a smear of dots means chaos. The marked line is the mere's
+        value today.
+      </p>
+      <tropline-bifurcation-chart
+        [request]="sweep()!"
+        label="Long-run perch peaks against water-flea handling time"
+      />
+    } @else {
+      <lla-published-status [state]="state()" />
+    }
   `,
   styles: `
     .lla-lede {
@@ -59,20 +86,37 @@ interface Assessment {
 })
 export class LongRunPage {
   private readonly client = inject(TroplineClient);
-  protected readonly scenario = publishedScenario('brackenlow-mere');
-  protected readonly sweep = sweepRequest(this.scenario);
+  protected readonly state = publishedScenario(BRACKENLOW_MERE);
+  protected readonly published = computed(() => readyScenario(this.state()));
+  protected readonly sweep = computed((): SweepRequest | undefined => {
+    const s = this.published();
+    return s && { ...MERE_HANDLING_TIME_SWEEP, model: s.model, initial: s.initial };
+  });
 
+  private readonly published$ = toObservable(this.published);
   protected readonly assessment = toSignal(
-    this.client.regime({ model: this.scenario.model, initial: this.scenario.initial }).pipe(
-      map((regime): Assessment => ({ regime })),
-      catchError((error: TroplineApiError) => of<Assessment>({ error })),
+    this.published$.pipe(
+      switchMap((s) =>
+        s
+          ? this.client.regime({ model: s.model, initial: s.initial }).pipe(
+              map((regime): Assessment => ({ regime })),
+              catchError((error: TroplineApiError) => of<Assessment>({ error })),
+            )
+          : of<Assessment>({}),
+      ),
     ),
     { initialValue: {} as Assessment },
   );
   protected readonly equilibria = toSignal(
-    this.client.equilibria({ model: this.scenario.model }).pipe(
-      map((r) => r.equilibria),
-      catchError(() => of<readonly Equilibrium[]>([])),
+    this.published$.pipe(
+      switchMap((s) =>
+        s
+          ? this.client.equilibria({ model: s.model }).pipe(
+              map((r) => r.equilibria),
+              catchError(() => of<readonly Equilibrium[]>([])),
+            )
+          : of<readonly Equilibrium[]>([]),
+      ),
     ),
     { initialValue: [] as readonly Equilibrium[] },
   );
