@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import type { Knex } from 'knex';
 import { DEFAULT_PLAN, QuotasRepository, type QuotaPlan } from './quotas-repository';
 
@@ -11,7 +12,10 @@ export interface DayUnits {
 /** Units charged to one key this month. */
 export interface KeyUnits {
   readonly keyId: string;
-  /** The key's name, or null when the key no longer exists. */
+  /**
+   * The key's name; for a signed-in member's meter (calibrations started in the console) the
+   * member's name with "(signed in)"; null when neither exists any more.
+   */
   readonly name: string | null;
   readonly units: number;
 }
@@ -40,6 +44,14 @@ export interface MonthUsage {
 }
 
 /**
+ * The ledger's key id for work a signed-in member started: `u-` + 14 hex of the SHA-256 of the
+ * user id, as `server/calibration/calibration-routes.ts` meters console calibrations.
+ */
+export function memberMeter(userId: string): string {
+  return 'u-' + createHash('sha256').update(userId).digest('hex').slice(0, 14);
+}
+
+/**
  * Read side of the usage ledger for the console: the month's counter and plan, the ledger
  * grouped by day, key and endpoint, and the alerts sent. Refunds are negative ledger rows, so
  * each sum is what was finally charged. Portable SQL: `at` is a fixed-width ISO string, so its
@@ -57,7 +69,7 @@ export class ConsoleUsageRepository {
     const ledger = () =>
       this.db('usage_ledger as l').where({ 'l.tenant_id': tenantId, 'l.period': period });
     const day = this.db.raw('substr(??, 1, 10)', ['l.at']);
-    const [plan, used, days, keys, endpoints, alerts] = await Promise.all([
+    const [plan, used, days, keys, endpoints, alerts, members] = await Promise.all([
       this.quotas.getPlan(tenantId),
       this.quotas.used({ tenantId, period }),
       ledger().select({ day }).sum({ units: 'l.units' }).groupBy(day).orderBy('day'),
@@ -76,7 +88,14 @@ export class ConsoleUsageRepository {
         .where({ tenant_id: tenantId, period })
         .select('threshold', 'at')
         .orderBy('threshold'),
+      this.db('memberships as m')
+        .join('users as u', 'u.id', 'm.user_id')
+        .where('m.tenant_id', tenantId)
+        .select('u.id', 'u.name'),
     ]);
+    const meters = new Map(
+      (members as { id: string; name: string }[]).map((u) => [memberMeter(u.id), u.name]),
+    );
     type Row = Record<string, string | number | null>;
     return {
       plan: plan ?? DEFAULT_PLAN,
@@ -84,7 +103,12 @@ export class ConsoleUsageRepository {
       byDay: (days as Row[]).map((r) => ({ day: String(r.day), units: Number(r.units) })),
       byKey: (keys as Row[]).map((r) => ({
         keyId: String(r.key_id),
-        name: r.name === null || r.name === undefined ? null : String(r.name),
+        name:
+          typeof r.name === 'string'
+            ? r.name
+            : meters.has(String(r.key_id))
+              ? `${meters.get(String(r.key_id))} (signed in)`
+              : null,
         units: Number(r.units),
       })),
       byEndpoint: (endpoints as Row[]).map((r) => ({

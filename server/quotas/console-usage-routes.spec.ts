@@ -3,6 +3,7 @@ import { HASTINGS_POWELL_BENCHMARK } from '@tropline/core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { conformsToContract } from '../../tests/api/openapi-contract';
 import { clockedApp, signInDemo, type ClockedApp } from '../accounts/testing/signed-in-agent';
+import { memberMeter } from './console-usage-repository';
 
 const DAY = 86_400_000;
 
@@ -120,6 +121,28 @@ describe('GET /console/usage', () => {
     const u = await usage();
     expect(u.used).toBe(8);
     expect(u.alerts).toEqual([{ sentAt: '2026-12-08T09:00:00.000Z', threshold: 80 }]);
+  });
+
+  it("names a signed-in member's calibrations by the member", async () => {
+    const analyst = await signInDemo(t.app, 'analyst');
+    const moor = (await analyst.agent.get('/api/v1/scenarios').expect(200)).body.scenarios.find(
+      (s: { name: string }) => s.name.includes('Hobcairn'),
+    );
+    await analyst.agent
+      .post(`/api/v1/scenarios/${moor.id}/calibrations`)
+      .set('X-CSRF-Token', analyst.csrf)
+      .send({
+        dataset: 1,
+        parameters: [{ pointer: '/levels/1/mortality', min: 0.1, max: 1 }],
+        starts: 1,
+        maxIterations: 1,
+      })
+      .expect(202);
+    const u = await usage();
+    const row = u.byKey.find((k) => k.keyId === memberMeter(analyst.session.user.id));
+    expect(row?.name).toBe('Priya Calder (signed in)');
+    expect(row!.units).toBeGreaterThan(0);
+    expect(total(u.byKey)).toBe(u.used);
   });
 
   it('starts afresh in the next month', async () => {
