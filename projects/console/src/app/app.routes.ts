@@ -42,21 +42,8 @@ export const routes: Routes = [
       },
       {
         path: 'scenarios',
-        title: title('Scenarios'),
         canActivate: [requireAction('scenarios:read')],
-        loadComponent: () => import('./scenarios/scenarios-page').then((m) => m.ScenariosPage),
-      },
-      {
-        path: 'scenarios/new',
-        title: title('New scenario'),
-        canActivate: [requireAction('scenarios:write')],
-        loadComponent: () => import('./scenarios/new-scenario-page').then((m) => m.NewScenarioPage),
-      },
-      {
-        path: 'scenarios/:id',
-        title: title('Scenario'),
-        canActivate: [requireAction('scenarios:read')],
-        loadComponent: () => import('./scenarios/scenario-page').then((m) => m.ScenarioPage),
+        loadChildren: () => import('./scenarios/scenario-routes').then((m) => m.SCENARIO_ROUTES),
       },
       {
         path: 'keys',

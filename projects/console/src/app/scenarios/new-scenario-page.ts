@@ -52,7 +52,9 @@ export class NewScenarioPage {
     consumerUnit: ['', Validators.required],
   });
 
-  protected async create(): Promise<void> {
+  protected async create(event: Event): Promise<void> {
+    // A plain form (two form groups inside): keep the browser from submitting it itself.
+    event.preventDefault();
     const form = this.start() === 'preset' ? this.presetForm : this.scratchForm;
     form.markAllAsTouched();
     if (form.invalid) return;

@@ -1,3 +1,4 @@
+import { DecimalPipe } from '@angular/common';
 import {
   ChangeDetectionStrategy,
   Component,
@@ -37,7 +38,7 @@ interface RangeRow {
  */
 @Component({
   selector: 'tc-publish-panel',
-  imports: [MatButton, MatCheckbox, MatProgressBar, ProblemAlert],
+  imports: [DecimalPipe, MatButton, MatCheckbox, MatProgressBar, ProblemAlert],
   templateUrl: './publish-panel.html',
   styleUrl: './publish-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -53,7 +53,12 @@ export class UsagePage {
   protected readonly keys = computed(() =>
     usageBars(
       (this.data.value()?.byKey ?? []).map((k) => ({
-        label: k.name ? `${k.name} (${k.keyId})` : `Removed key ${k.keyId}`,
+        // Member meters (`u-…`) already read as a person; keys also show their id.
+        label: !k.name
+          ? `Removed key ${k.keyId}`
+          : k.keyId.startsWith('u-')
+            ? k.name
+            : `${k.name} (${k.keyId})`,
         units: k.units,
       })),
     ),
