@@ -80,6 +80,30 @@ export class JobsRepository {
     });
   }
 
+  /**
+   * Stores a new queued job unless the tenant would then have more than `maxActive` queued or
+   * running; returns whether it was stored. The insert comes first inside the transaction, so it
+   * takes the database's write lock and the count after it sees every concurrent admission: a
+   * count-then-insert lets a burst of simultaneous submissions all pass the bound.
+   */
+  async insertBounded(
+    job: Omit<JobRecord, 'result' | 'error' | 'startedAt' | 'finishedAt'>,
+    maxActive: number,
+  ): Promise<boolean> {
+    const over = new Error('over the bound');
+    try {
+      await this.db.transaction(async (trx) => {
+        const repo = new JobsRepository(trx);
+        await repo.insert(job);
+        if ((await repo.countActive(job.tenantId)) > maxActive) throw over;
+      });
+      return true;
+    } catch (err) {
+      if (err === over) return false;
+      throw err;
+    }
+  }
+
   /** A tenant's job, or undefined. */
   async find(tenantId: string, id: string): Promise<JobRecord | undefined> {
     const row = await this.db('jobs').where({ tenant_id: tenantId, id }).first();

@@ -122,16 +122,9 @@ export class JobsService {
         },
       );
     }
+    // A cheap early refusal; insertBounded below is the check that holds under concurrency.
     if ((await this.repo.countActive(principal.tenantId)) >= this.options.perTenantActive) {
-      throw new ProblemError(
-        429,
-        'too-many-jobs',
-        'Too many jobs at once',
-        `A tenant may have ${this.options.perTenantActive} jobs queued or running; wait for one ` +
-          'to finish or cancel one.',
-        { limit: 'concurrent-jobs', max: this.options.perTenantActive, retryAfter: 5 },
-        { 'Retry-After': '5' },
-      );
+      throw this.tooManyJobs();
     }
     const ticket = await this.quotas.admit(principal, kindName, cost, res);
     const record: JobRecord = {
@@ -153,8 +146,9 @@ export class JobsService {
       finishedAt: null,
       expiresAt: this.iso(JOB_RETENTION_MS),
     };
+    let stored: boolean;
     try {
-      await this.repo.insert(record);
+      stored = await this.repo.insertBounded(record, this.options.perTenantActive);
     } catch (err) {
       await this.quotas.refund(ticket);
       if (idempotencyKey !== undefined && isUniqueViolation(err)) {
@@ -164,9 +158,25 @@ export class JobsService {
       }
       throw err;
     }
+    if (!stored) {
+      await this.quotas.refund(ticket);
+      throw this.tooManyJobs();
+    }
     this.queue.push({ record, kind, request: checked.value, ticket });
     this.pump();
     return { job: jobView(record), cache: 'miss', replayed: false };
+  }
+
+  private tooManyJobs(): ProblemError {
+    return new ProblemError(
+      429,
+      'too-many-jobs',
+      'Too many jobs at once',
+      `A tenant may have ${this.options.perTenantActive} jobs queued or running; wait for one ` +
+        'to finish or cancel one.',
+      { limit: 'concurrent-jobs', max: this.options.perTenantActive, retryAfter: 5 },
+      { 'Retry-After': '5' },
+    );
   }
 
   private async replay(principal: KeyPrincipal, earlier: JobRecord, hash: string, res: Response) {

@@ -1,8 +1,11 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { testConfig } from '../../server/config';
 import { serve, type RunningServer } from '../../server/serve';
-import { prepareFlood, runFlood } from './job-flood';
-import { freshDatabaseFile } from './live-server';
+import { KeysService } from '../../server/keys/keys-service';
+import { QuotasService } from '../../server/quotas/quotas-service';
+import { TenantsService } from '../../server/tenants/tenants-service';
+import { heavySweep, prepareFlood, runFlood } from './job-flood';
+import { freshDatabaseFile, send } from './live-server';
 
 // One process suffices: the flood and the victim share its worker pools, which is the point.
 // The test asserts what must hold (bounded queue, every victim answered); the victim's p99
@@ -20,6 +23,34 @@ describe('resource exhaustion: one tenant flooding heavy jobs', () => {
     keys = await prepareFlood(ctx.db, ctx.demoKeys!.serverKey);
   });
   afterAll(() => running.stop());
+
+  // Found by `npm run soak`: the bound was checked before the job row was written, so a burst
+  // of simultaneous submissions all passed the check and a tenant held 9 jobs, not 4.
+  it('holds a burst of simultaneous submissions to the per-tenant bound', async () => {
+    const { db } = running.app.locals.tropline;
+    const tenant = await new TenantsService(db).create('wrenfold', 'Wrenfold Fisheries');
+    await new QuotasService(db).setPlan(tenant.id, { monthlyUnits: 1e8, perMinute: 1e6 }, 't');
+    const key = await new KeysService(db).issue({ tenantId: tenant.id, kind: 'server' }, 't');
+    const answers = await Promise.all(
+      Array.from({ length: 12 }, (_, i) =>
+        send(base, 'POST', '/sweeps', { key: key.token, body: heavySweep(1000 + i) }),
+      ),
+    );
+    const statuses = answers.map((a) => a.status);
+    expect(statuses.filter((s) => s !== 202 && s !== 429)).toEqual([]);
+    expect(statuses.filter((s) => s === 202).length).toBeLessThanOrEqual(PER_TENANT_ACTIVE);
+    const active = await db('jobs')
+      .where({ tenant_id: tenant.id })
+      .whereIn('status', ['queued', 'running'])
+      .count<{ n: number }[]>({ n: '*' });
+    expect(Number(active[0]!.n)).toBeLessThanOrEqual(PER_TENANT_ACTIVE);
+    // A refused submission cost nothing: only the admitted jobs' units are on the ledger.
+    const usage = await send(base, 'GET', '/usage', { key: key.token });
+    const admittedUnits = answers
+      .filter((a) => a.status === 202)
+      .reduce((sum, a) => sum + Number(a.json!.units ?? 0), 0);
+    expect(usage.json!.used).toBe(admittedUnits);
+  });
 
   it('bounds the flooding tenant’s queue and answers every one of the victim’s projections', async () => {
     const { db } = running.app.locals.tropline;
