@@ -37,7 +37,8 @@ const CRASH_CYCLES = Number(process.env.SOAK_CRASHES ?? 8);
 const LOAD_SECONDS = Number(process.env.SOAK_LOAD_SECONDS ?? 20);
 const FLOOD_MS = Number(process.env.SOAK_FLOOD_MS ?? 15_000);
 
-const totals = { requests: 0, fiveHundreds: 0, faults: 0, badInputs: 0, lost: 0 };
+const totals = { requests: 0, fiveHundreds: 0, faults: 0, badInputs: 0, lost: 0, broken: 0 };
+const PER_TENANT_ACTIVE = 4; // server/auth/keyed-api.ts
 const rows: [string, string][] = [];
 const log = (line: string) => console.log(`soak: ${line}`);
 
@@ -78,6 +79,7 @@ async function quotaExactness(): Promise<void> {
     totals.fiveHundreds += answers.filter((a) => a.status >= 500).length;
   }
   await Promise.all(servers.map((s) => s.stop()));
+  if (admitted !== limit || other) totals.broken++;
   totals.requests += total;
   rows.push([
     'quota, 3 processes',
@@ -177,6 +179,7 @@ async function fuzz(): Promise<void> {
   totals.badInputs += tally.tried;
   totals.fiveHundreds += tally.fiveHundreds;
   for (const c of tally.complaints) log(`FUZZ ${c}`);
+  totals.broken += tally.complaints.length + (alive ? 0 : 1);
   const statuses = [...tally.statuses].sort(([a], [b]) => a - b).map(([s, n]) => `${s}×${n}`);
   rows.push([
     'hostile input',
@@ -209,6 +212,8 @@ async function flood(): Promise<void> {
   });
   reader.close();
   await server.stop();
+  if (flooded.maxActive > PER_TENANT_ACTIVE) totals.broken++;
+  if (flooded.victim.ok !== flooded.victim.sent) totals.broken++;
   const p99a = percentile(alone.victim.latenciesMs, 99);
   const p99f = percentile(flooded.victim.latenciesMs, 99);
   const sent = alone.victim.sent + flooded.victim.sent + flooded.flood.sent;
@@ -235,6 +240,7 @@ async function matrix(): Promise<void> {
   const { cells, mismatches } = await runMatrix(base, built.fixture, built.creds);
   await running.stop();
   for (const m of mismatches) log(`MATRIX ${JSON.stringify(m)}`);
+  totals.broken += mismatches.length;
   totals.requests += cells;
   rows.push([
     'authorization matrix',
@@ -271,10 +277,11 @@ async function main(): Promise<void> {
     ['bad inputs tried', String(totals.badInputs)],
     ['5xx seen', String(totals.fiveHundreds)],
     ['writes lost', String(totals.lost)],
+    ['promises broken', `${totals.broken} (quota, bound, victim, matrix, problem documents)`],
     ['wall time', `${((Date.now() - started) / 1000).toFixed(0)} s`],
   ];
   for (const [k, v] of summary) console.log(`  ${k.padEnd(18)} ${v}`);
-  process.exit(totals.fiveHundreds || totals.lost ? 1 : 0);
+  process.exit(totals.fiveHundreds || totals.lost || totals.broken ? 1 : 0);
 }
 
 void main();
