@@ -150,7 +150,7 @@ describe('custom elements on a plain HTML page in Chromium', () => {
 
     // The widgets' own <style> elements carry the page's nonce.
     const styles = await page.evaluate(() =>
-      Array.from(document.querySelectorAll('style')).map((s) => s.nonce),
+      Array.from(document.querySelectorAll('style')).map((s) => s.nonce ?? ''),
     );
     expect(styles.length).toBeGreaterThan(3);
     expect(styles.every((n) => n.length >= 16)).toBe(true);
