@@ -52,7 +52,7 @@ try {
         ? [
             '',
             `Mail goes to the local catcher (SMTP 127.0.0.1:${mailbox.port}); read it at ` +
-              `${base}/api/v1/dev/mailbox`,
+              `${base}/console/mailbox`,
           ]
         : []),
       '',
