@@ -53,7 +53,7 @@ export function createApp(config: Config, options: AppOptions = {}): TroplineApp
   const db = openDatabase(config);
   const keyed = keyedApi(db, now, options.computeLimits);
   const accounts = accountsApi(db, config, now, keyed);
-  const scenarios = scenariosApi(db, config, now, keyed);
+  const scenarios = scenariosApi(db, accounts.sessions, now, keyed);
   const ready = prepareDatabase(db, config).then(async (outcome) => {
     if (config.nodeEnv !== 'production') {
       context.demoKeys = outcome.seeded

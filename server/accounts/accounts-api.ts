@@ -17,7 +17,7 @@ import { passwordResetsRoutes } from './password-resets-routes';
 import { PasswordResetsService } from './password-resets-service';
 import { SignInService } from './sign-in-service';
 import { sessionRoutes, signOutEverywhereRoutes } from './session-routes';
-import { sessionStack } from './session-stack';
+import { sessionStack, type SessionStack } from './session-stack';
 import { UsersService } from './users-service';
 
 /** Paths that use the console's cookie session (everything else under /api/v1 never sees it). */
@@ -40,6 +40,8 @@ export interface AccountsApi {
   readonly users: UsersService;
   readonly signIn: SignInService;
   readonly mailer: Mailer;
+  /** The console's cookie sessions, shared by every route that accepts a signed-in member. */
+  readonly sessions: SessionStack;
   /** Starts the mail catcher (development, tests), the outbox worker and housekeeping. */
   start(): Promise<void>;
   /** Stops them; the database stays open for the caller to close. */
@@ -103,6 +105,7 @@ export function accountsApi(
     users,
     signIn,
     mailer,
+    sessions: stack,
     async start() {
       await mailer.start();
       if (config.nodeEnv !== 'test') {

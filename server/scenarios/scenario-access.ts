@@ -1,12 +1,10 @@
 import { Router, type Request, type RequestHandler } from 'express';
-import type { Knex } from 'knex';
 import type { Action } from '@tropline/core';
 import { requireTenantAction } from '../accounts/access-guard';
-import { sessionStack } from '../accounts/session-stack';
+import type { SessionStack } from '../accounts/session-stack';
 import { accessOf, userOf } from '../accounts/signed-in-user';
 import { principalOf, type KeyPrincipal } from '../auth/key-principal';
 import { keyGuard } from '../auth/require-key';
-import type { Config } from '../config';
 import { ProblemError } from '../http/problem';
 import type { Scope } from '../keys/key-scopes';
 import type { KeysService } from '../keys/keys-service';
@@ -49,17 +47,14 @@ export type ScenarioGuard = (need: Need) => RequestHandler;
  * Scenario routes take either credential: a bearer key with the route's scope (browser keys
  * only where the route serves published versions), or the console's cookie session with CSRF
  * on changes and the role matrix's action in the `Tropline-Tenant` tenant. The session stack
- * is a second instance over the same store and secret, so it reads the same sessions and
- * tokens as the accounts routes without those routes changing.
+ * is the accounts routes' own, so both read the same sessions and CSRF tokens.
  */
 export function scenarioGuard(
-  db: Knex,
-  config: Config,
+  stack: SessionStack,
   now: () => number,
   keyed: { readonly keys: KeysService; readonly quotas: QuotasService },
 ): ScenarioGuard {
   const requireKey = keyGuard(keyed.keys, now);
-  const stack = sessionStack(db, config, now);
   const metered = keyed.quotas.free('scenarios');
   return (need) => {
     const byKey = Router();

@@ -1,10 +1,10 @@
 import { Router } from 'express';
 import type { Knex } from 'knex';
+import type { SessionStack } from '../accounts/session-stack';
 import { workerThreads } from '../auth/keyed-api';
 import { CalibrationPool } from '../calibration/calibration-pool';
 import { calibrationKind } from '../calibration/calibration-kind';
 import { calibrationRoutes } from '../calibration/calibration-routes';
-import type { Config } from '../config';
 import { datasetsRoutes } from '../datasets/datasets-routes';
 import { DatasetsService } from '../datasets/datasets-service';
 import type { JobsService } from '../jobs/jobs-service';
@@ -29,7 +29,7 @@ export interface ScenariosApi {
  */
 export function scenariosApi(
   db: Knex,
-  config: Config,
+  sessions: SessionStack,
   now: () => number,
   keyed: {
     readonly keys: KeysService;
@@ -37,7 +37,7 @@ export function scenariosApi(
     readonly jobs: JobsService;
   },
 ): ScenariosApi {
-  const guard = scenarioGuard(db, config, now, keyed);
+  const guard = scenarioGuard(sessions, now, keyed);
   const scenarios = new ScenariosService(db, now);
   const datasets = new DatasetsService(db, scenarios, now);
   const pool = new CalibrationPool(workerThreads());
