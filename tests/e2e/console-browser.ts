@@ -4,6 +4,7 @@ import { resolve } from 'node:path';
 import AxeBuilder from '@axe-core/playwright';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { expect } from 'vitest';
+import { localOnlyContext } from './local-only-context';
 
 /** Where the console journeys leave their screenshots (git-ignored). */
 export const CONSOLE_ARTIFACTS = resolve(import.meta.dirname, '../artifacts/console');
@@ -16,12 +17,6 @@ export const DEMO = {
   viewer: { email: 'jonas.reedmere@larchmere.example', password: 'larchmere-viewer-demo' },
 } as const;
 
-function isLocal(url: string): boolean {
-  const { protocol, hostname } = new URL(url);
-  if (protocol === 'data:' || protocol === 'blob:' || protocol === 'about:') return true;
-  return hostname === 'localhost' || hostname === '127.0.0.1' || hostname === '[::1]';
-}
-
 /** A fresh browser context (own cookies) whose requests may not leave the machine. */
 export async function consoleContext(browser: Browser): Promise<{
   context: BrowserContext;
@@ -29,17 +24,8 @@ export async function consoleContext(browser: Browser): Promise<{
   outside: string[];
 }> {
   mkdirSync(CONSOLE_ARTIFACTS, { recursive: true });
-  const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-  const outside: string[] = [];
-  await context.route('**/*', async (route) => {
-    const url = route.request().url();
-    if (isLocal(url)) await route.continue();
-    else {
-      outside.push(url);
-      await route.abort('blockedbyclient');
-    }
-  });
-  return { context, page: await context.newPage(), outside };
+  const { context, log } = await localOnlyContext(browser);
+  return { context, page: await context.newPage(), outside: log.outside };
 }
 
 /** Runs axe (WCAG 2.2 A and AA rules) on the page as it is now and expects no violation. */

@@ -5,39 +5,17 @@ import { resolve } from 'node:path';
 import { type Browser, chromium, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CHROMIUM_ARGS, ensureChromium } from './chromium';
+import { localOnlyContext, type RequestLog } from './local-only-context';
 import { type ServedApp, serveForBrowser } from './served-app';
 
 const ARTIFACTS = resolve(import.meta.dirname, '../artifacts');
-
-/** Every URL the page asked for, and those that tried to leave the machine. */
-interface RequestLog {
-  all: string[];
-  outside: string[];
-}
-
-function isLocal(url: string): boolean {
-  const { protocol, hostname } = new URL(url);
-  if (protocol === 'data:' || protocol === 'blob:') return true;
-  return hostname === 'localhost' || hostname === '127.0.0.1' || hostname === '[::1]';
-}
 
 async function openPage(
   browser: Browser,
   url: string,
   beforeGoto: (page: Page) => void | Promise<void> = () => undefined,
 ): Promise<{ page: Page; log: RequestLog }> {
-  const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-  const log: RequestLog = { all: [], outside: [] };
-  // Refuse, and record, anything that would leave localhost.
-  await context.route('**/*', async (route) => {
-    const url = route.request().url();
-    log.all.push(url);
-    if (isLocal(url)) await route.continue();
-    else {
-      log.outside.push(url);
-      await route.abort('blockedbyclient');
-    }
-  });
+  const { context, log } = await localOnlyContext(browser);
   const page = await context.newPage();
   await beforeGoto(page);
   await page.goto(url, { waitUntil: 'networkidle' });

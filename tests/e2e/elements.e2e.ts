@@ -5,6 +5,7 @@ import { resolve } from 'node:path';
 import { type Browser, chromium, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CHROMIUM_ARGS, ensureChromium } from './chromium';
+import { localOnlyContext } from './local-only-context';
 import { type ServedApp, serveForBrowser } from './served-app';
 
 const ARTIFACTS = resolve(import.meta.dirname, '../artifacts');
@@ -22,26 +23,12 @@ declare global {
   }
 }
 
-function isLocal(url: string): boolean {
-  const { protocol, hostname } = new URL(url);
-  if (protocol === 'data:' || protocol === 'blob:') return true;
-  return hostname === 'localhost' || hostname === '127.0.0.1' || hostname === '[::1]';
-}
-
 async function openWatched(
   browser: Browser,
   url: string,
 ): Promise<{ page: Page; trouble: Trouble }> {
-  const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-  const trouble: Trouble = { console: [], violations: [], outside: [] };
-  await context.route('**/*', async (route) => {
-    const target = route.request().url();
-    if (isLocal(target)) await route.continue();
-    else {
-      trouble.outside.push(target);
-      await route.abort('blockedbyclient');
-    }
-  });
+  const { context, log } = await localOnlyContext(browser);
+  const trouble: Trouble = { console: [], violations: [], outside: log.outside };
   // Installed before any of the page's scripts run, so no violation goes unheard.
   await context.addInitScript(() => {
     window.__cspViolations = [];
