@@ -5,6 +5,8 @@ import { pinoHttp } from 'pino-http';
 import type { Config } from './config';
 import { openDatabase, prepareDatabase, type PrepareOutcome } from './db/database';
 import { keyedApi } from './auth/keyed-api';
+import { memberComputeGuard } from './accounts/member-compute-guard';
+import { stampStart } from './projections/sync-compute';
 import { accountsApi, type AccountsApi } from './accounts/accounts-api';
 import { DEMO_USERS, type DemoUser } from '../seeds/03-demo-users';
 import type { ComputeLimits } from './projections/projections-routes';
@@ -115,6 +117,8 @@ export function createApp(config: Config, options: AppOptions = {}): TroplineApp
   api.use(accounts.router);
   api.use(keyed.router);
   api.use(scenarios.router);
+  // Behind the accounts' session stack, which every `/console` path passes first.
+  api.use('/console/compute', stampStart, keyed.computeRoutes(memberComputeGuard(db)));
   api.use(notFound);
   app.use('/api/v1', api);
   app.use('/api', docsRoutes());

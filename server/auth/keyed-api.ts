@@ -19,7 +19,7 @@ import { stampStart } from '../projections/sync-compute';
 import { QuotasService } from '../quotas/quotas-service';
 import { usageRoutes } from '../quotas/usage-routes';
 import { keyCorsPreflight } from './key-cors';
-import { keyGuard } from './require-key';
+import { keyGuard, type KeyGuard } from './require-key';
 
 /** Worker threads for heavy work: all cores but the one serving requests, 1 to 4. */
 export function workerThreads(): number {
@@ -32,6 +32,12 @@ export interface KeyedApi {
   readonly keys: KeysService;
   readonly quotas: QuotasService;
   readonly jobs: JobsService;
+  /**
+   * The compute routes (projections, equilibria, the analyses and their jobs) behind another
+   * guard, over the same pools, cache and job runner: the console mounts them at
+   * `/console/compute` behind a signed-in member's role.
+   */
+  computeRoutes(guard: KeyGuard): Router;
   /** Stops background work (job runner, pool). */
   close(): Promise<void>;
 }
@@ -57,9 +63,6 @@ export function keyedApi(
   // bench's repeats hit it; engine answers are deterministic so a hit is exact.
   const cache = new ResultCache({ maxBytes: 64 * 2 ** 20, ttlMs: 10 * 60_000, now });
   const projectionPool = new ProjectionPool(workerThreads());
-  router.use(
-    projectionsRoutes(quotas, cache, projectionPool, { ...COMPUTE_LIMITS, ...limits }, requireKey),
-  );
   const jobs = new JobsService(db, quotas, now, {
     concurrency: workerThreads(),
     perTenantActive: 4,
@@ -69,13 +72,20 @@ export function keyedApi(
   let analysisPool: AnalysisPool | undefined;
   const pool = () => (analysisPool ??= createAnalysisPool({ size: workerThreads() }));
   jobs.start();
-  router.use(analysesRoutes(jobs, quotas, cache, pool, requireKey));
-  router.use(jobsRoutes(jobs, quotas, requireKey));
+  const computeRoutes = (guard: KeyGuard) =>
+    Router()
+      .use(
+        projectionsRoutes(quotas, cache, projectionPool, { ...COMPUTE_LIMITS, ...limits }, guard),
+      )
+      .use(analysesRoutes(jobs, quotas, cache, pool, guard))
+      .use(jobsRoutes(jobs, quotas, guard));
+  router.use(computeRoutes(requireKey));
   return {
     router,
     keys,
     quotas,
     jobs,
+    computeRoutes,
     close: async () => {
       await jobs.close();
       await projectionPool.close();

@@ -76,7 +76,7 @@ function realId(f: Fixture, template: string, param: string): string | undefined
   if (param === 'version') return template.includes('/datasets/') ? undefined : '1';
   if (param === 'userId') return f.ids.userId;
   if (head === 'scenarios') return f.ids.scenario;
-  if (head === 'jobs') return f.ids.job;
+  if (head === 'jobs' || template.startsWith('/console/compute/jobs/')) return f.ids.job;
   if (head === 'keys' || head === 'console') return f.ids.key;
   return undefined;
 }

@@ -33,6 +33,7 @@ const publish = { via: 'either', scope: 'scenarios:write', action: 'scenarios:pu
 const dataRead = { via: 'either', scope: 'scenarios:read', action: 'data:read' } as const;
 const dataWrite = { via: 'either', scope: 'scenarios:write', action: 'data:write' } as const;
 const open = { via: 'public' } as const;
+const memberCompute = { via: 'session', action: 'analyses:run' } as const;
 
 /** `method template` → access. */
 export const ROUTE_ACCESS: Readonly<Record<string, Access>> = {
@@ -72,6 +73,16 @@ export const ROUTE_ACCESS: Readonly<Record<string, Access>> = {
   'delete /console/keys/{id}': { via: 'session', action: 'keys:manage' },
   'post /console/keys/{id}/rotate': { via: 'session', action: 'keys:manage' },
   'get /console/usage': { via: 'session', action: 'usage:read' },
+  'post /console/compute/projections': memberCompute,
+  'post /console/compute/equilibria': memberCompute,
+  'post /console/compute/regimes': memberCompute,
+  'post /console/compute/sweeps': memberCompute,
+  'post /console/compute/regime-maps': memberCompute,
+  'post /console/compute/ensembles': memberCompute,
+  'post /console/compute/comparisons': memberCompute,
+  'get /console/compute/jobs/{id}': memberCompute,
+  'delete /console/compute/jobs/{id}': memberCompute,
+  'get /console/compute/jobs/{id}/events': memberCompute,
   'post /tenants': { via: 'platform', action: 'tenants:create' },
   'put /tenants/{slug}/plan': { via: 'platform', action: 'quotas:set' },
   'get /dev/mailbox': open,
