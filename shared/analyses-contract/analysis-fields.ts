@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { ANALYSIS_LIMITS as L } from './analysis-limits';
 
 /** A finite number with plain messages. */

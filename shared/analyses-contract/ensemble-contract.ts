@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import type { ChainModel } from '../model/chain-model';
 import type { ValidationIssue, ValidationResult } from '../model/validation-issue';
 import { distributionIssues, type Distribution } from '../ensemble/distribution';

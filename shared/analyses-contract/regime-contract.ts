@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import type { ChainModel } from '../model/chain-model';
 import type { ValidationResult } from '../model/validation-issue';
 import type { RegimeOptions } from '../regime/assess-regime';

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { chainModelSchema, type ChainModel } from '../model/chain-model';
 import { validateModel } from '../model/model-validation';
 import type { ValidationResult } from '../model/validation-issue';

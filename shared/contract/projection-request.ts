@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { chainModelSchema, type ChainModel } from '../model/chain-model';
 import { initialStateIssues } from '../model/initial-vector';
 import { issuesFromZod } from '../model/zod-issues';

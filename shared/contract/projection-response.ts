@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 /** zod schema of the projection response (`POST /api/v1/projections` → 200). */
 export const projectionResponseSchema = z.object({

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { ENGINE_LIMITS } from '../contract/limits';
 
 const MAX = ENGINE_LIMITS.maxParameterMagnitude;

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import type { ChainModel } from '../model/chain-model';
 import { getParameter, withParameter } from '../model/parameter-pointer';
 import type { ValidationIssue } from '../model/validation-issue';
