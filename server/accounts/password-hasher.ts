@@ -7,6 +7,9 @@ export interface HashCost {
   readonly parallelism: number;
 }
 
+/** The argon2 version @node-rs/argon2 writes (0x13, RFC 9106); older hashes are replaced. */
+const ARGON2_VERSION = 19;
+
 /** The cost for real accounts: OWASP's argon2id minimum (19 MiB, 2 passes, 1 lane). */
 export const PRODUCTION_COST: HashCost = { memoryCost: 19_456, timeCost: 2, parallelism: 1 };
 
@@ -42,6 +45,24 @@ export class PasswordHasher {
     } catch {
       return false;
     }
+  }
+
+  /**
+   * Whether a stored hash was made more cheaply than this hasher's cost (or with another
+   * algorithm or version), so it should be replaced at the next sign-in, when the password is
+   * at hand. A hash of a higher cost is kept: lowering the cost never weakens stored hashes.
+   */
+  needsRehash(stored: string): boolean {
+    const phc = /^\$(argon2(?:id|i|d))\$v=(\d+)\$m=(\d+),t=(\d+),p=(\d+)\$/.exec(stored);
+    if (!phc) return true;
+    const [, algorithm, version, m, t, p] = phc;
+    return (
+      algorithm !== 'argon2id' ||
+      Number(version) < ARGON2_VERSION ||
+      Number(m) < this.cost.memoryCost ||
+      Number(t) < this.cost.timeCost ||
+      Number(p) < this.cost.parallelism
+    );
   }
 
   /** Spends the time of one verification and answers false (the account does not exist). */

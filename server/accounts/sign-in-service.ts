@@ -19,7 +19,8 @@ export function signInFailed(): ProblemError {
 /**
  * Checks credentials. Throttled per account and per address; an unknown account costs the
  * same hashing time and gets the same answer as a wrong password, so nobody learns who has an
- * account. Every attempt, good or bad, leaves one audit event.
+ * account. Every attempt, good or bad, leaves one audit event. A good password whose stored
+ * hash is cheaper than today's cost is rehashed and stored on the way.
  */
 export class SignInService {
   readonly throttle: SignInThrottle;
@@ -58,6 +59,13 @@ export class SignInService {
       throw signInFailed();
     }
     await this.throttle.clearAccount(email);
+    if (this.hasher.needsRehash(user.passwordHash)) {
+      // The cost went up since this hash was made; the password is at hand only now.
+      const stronger = await this.hasher.hash(password);
+      if (await this.users.upgradeHash(user.id, user.passwordHash, stronger)) {
+        return { ...user, passwordHash: stronger };
+      }
+    }
     return user;
   }
 

@@ -101,6 +101,17 @@ export class UsersRepository {
       });
   }
 
+  /**
+   * Swaps a hash for a stronger one of the same password (sessions stay valid). Only while the
+   * stored hash is still `previous`, so a password changed meanwhile is never overwritten.
+   */
+  async upgradeHash(id: string, previous: string, passwordHash: string): Promise<boolean> {
+    const n = await this.db('users')
+      .where({ id, password_hash: previous })
+      .update({ password_hash: passwordHash });
+    return n > 0;
+  }
+
   /** Ends every session of the user (they hold the old generation). */
   async bumpSessionGeneration(id: string): Promise<void> {
     await this.db('users').where({ id }).increment('session_generation', 1);
