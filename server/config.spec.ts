@@ -2,7 +2,7 @@ import { mkdtempSync, chmodSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { ConfigError, loadConfig } from './config';
+import { ConfigError, DEVELOPMENT_MAIL_FROM, loadConfig } from './config';
 
 const base = { NODE_ENV: 'test', SQLITE_FILE: ':memory:' };
 
@@ -48,5 +48,35 @@ describe('loadConfig', () => {
   it('refuses an unknown NODE_ENV and a relative PUBLIC_URL', () => {
     expect(() => loadConfig({ ...base, NODE_ENV: 'staging' })).toThrow(/^NODE_ENV/);
     expect(() => loadConfig({ ...base, PUBLIC_URL: 'portal.example' })).toThrow(/^PUBLIC_URL/);
+  });
+
+  it('reads MAIL_FROM: a reserved development sender, the public host in production', () => {
+    expect(loadConfig(base).mailFrom).toBe(DEVELOPMENT_MAIL_FROM);
+    expect(DEVELOPMENT_MAIL_FROM).toBe('Tropline <no-reply@tropline.localhost>');
+    const production = {
+      ...base,
+      NODE_ENV: 'production',
+      SESSION_SECRET: 'x'.repeat(40),
+      SMTP_URL: 'smtp://mail.fenmoor.example:587',
+      PUBLIC_URL: 'https://tropline.fenmoor.example',
+    };
+    expect(loadConfig(production).mailFrom).toBe('Tropline <no-reply@tropline.fenmoor.example>');
+    const given = '"Fenmoor Drainage Board, Tropline" <tropline@fenmoor.example>';
+    expect(loadConfig({ ...production, MAIL_FROM: ` ${given} ` }).mailFrom).toBe(given);
+    expect(loadConfig({ ...base, MAIL_FROM: 'tropline@fenmoor.example' }).mailFrom).toBe(
+      'tropline@fenmoor.example',
+    );
+  });
+
+  it.each([
+    'nobody',
+    'Tropline <nobody>',
+    'a@fenmoor.example, b@fenmoor.example',
+    'Board: a@fenmoor.example;',
+    'tropline@fenmoor.example\r\nBcc: all@elsewhere.example',
+    '<>',
+  ])('refuses MAIL_FROM=%j naming the variable', (value) => {
+    expect(() => loadConfig({ ...base, MAIL_FROM: value })).toThrow(ConfigError);
+    expect(() => loadConfig({ ...base, MAIL_FROM: value })).toThrow(/^MAIL_FROM: must /);
   });
 });

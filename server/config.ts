@@ -9,6 +9,8 @@ import {
 } from 'node:fs';
 import { randomBytes } from 'node:crypto';
 import { dirname, resolve } from 'node:path';
+import addressparser from 'nodemailer/lib/addressparser';
+import { emailProblems } from './accounts/email-address';
 
 /** Runtime configuration, read and checked once at start-up (architecture.md, "Configuration"). */
 export interface Config {
@@ -22,6 +24,8 @@ export interface Config {
   readonly sessionSecret: string;
   /** Outgoing mail server URL; undefined means "start the local catcher" in development. */
   readonly smtpUrl: string | undefined;
+  /** The sender of every mail, one address with an optional display name. */
+  readonly mailFrom: string;
   /** Base URL used in links that leave the server (e-mails, Location headers of docs). */
   readonly publicUrl: string;
   /** Whether to serve the built console, demo portal and Storybook from `dist/`. */
@@ -91,6 +95,31 @@ function readSessionSecret(env: NodeJS.ProcessEnv, nodeEnv: Config['nodeEnv'], d
   return secret;
 }
 
+/** The sender when `MAIL_FROM` is unset outside production: `.localhost` is reserved (RFC 6761). */
+export const DEVELOPMENT_MAIL_FROM = 'Tropline <no-reply@tropline.localhost>';
+
+/**
+ * `MAIL_FROM`: exactly one address (`Name <local@domain>` or `local@domain`), on one line. In
+ * production it defaults to `no-reply@` the host of `PUBLIC_URL`, the domain the links in the
+ * mail point at; elsewhere to {@link DEVELOPMENT_MAIL_FROM}.
+ */
+function readMailFrom(raw: string | undefined, nodeEnv: Config['nodeEnv'], publicUrl: string) {
+  if (raw === undefined || raw.trim() === '') {
+    return nodeEnv === 'production'
+      ? `Tropline <no-reply@${new URL(publicUrl).hostname}>`
+      : DEVELOPMENT_MAIL_FROM;
+  }
+  const example = 'such as "Tropline <no-reply@tropline.example>"';
+  if (/[\r\n]/.test(raw)) throw new ConfigError('MAIL_FROM', `must be on one line, ${example}`);
+  const parsed = addressparser(raw);
+  const one = parsed.length === 1 && 'address' in parsed[0]! ? parsed[0] : undefined;
+  // The same loose shape check as members' addresses: one `@`, no spaces, a dot in the domain.
+  if (!one || emailProblems(one.address, '').length > 0) {
+    throw new ConfigError('MAIL_FROM', `must be one e-mail address ${example}, got "${raw}"`);
+  }
+  return raw.trim();
+}
+
 /**
  * Reads the environment into a {@link Config}.
  * @throws ConfigError naming the variable when a value is unusable.
@@ -118,12 +147,14 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   if (nodeEnv === 'production' && !smtpUrl) {
     throw new ConfigError('SMTP_URL', 'must be set in production (no local mail catcher)');
   }
+  const mailFrom = readMailFrom(env.MAIL_FROM, nodeEnv, publicUrl);
   return {
     port,
     sqliteFile,
     nodeEnv,
     sessionSecret,
     smtpUrl,
+    mailFrom,
     publicUrl,
     serveApps: env.TROPLINE_SERVE_APPS !== '0',
     distDir: env.TROPLINE_DIST_DIR || 'dist',

@@ -8,6 +8,7 @@ import {
   type ClockedApp,
 } from '../accounts/testing/signed-in-agent';
 import { INVITATION_TTL_MS } from '../accounts/invitations-service';
+import { DEVELOPMENT_MAIL_FROM } from '../config';
 
 describe('invitations through the local SMTP catcher', () => {
   let t: ClockedApp;
@@ -33,6 +34,8 @@ describe('invitations through the local SMTP catcher', () => {
   it('arrives over SMTP with text and HTML parts, and its link works once', async () => {
     const mail = await invite('wren.ashdown@larchmere.example');
     expect(mail.to).toEqual(['wren.ashdown@larchmere.example']);
+    // The sender is the configured MAIL_FROM (here its development default), as sent.
+    expect(mail.from).toBe(DEVELOPMENT_MAIL_FROM);
     expect(mail.subject).toBe('Join Larchmere Lakes & Uplands Authority (demo) on Tropline');
     expect(mail.text).toContain('Tobias Fenwright has invited you');
     expect(mail.html).toContain('Larchmere Lakes &amp; Uplands Authority (demo)');

@@ -59,7 +59,12 @@ export class MailCatcher {
           .then((parsed) => {
             this.keep({
               id: this.nextId++,
-              from: session.envelope.mailFrom ? session.envelope.mailFrom.address : '',
+              // The From header as a mail client shows it; the envelope sender otherwise.
+              from:
+                parsed.from?.value
+                  .map((a) => (a.name ? `${a.name} <${a.address}>` : (a.address ?? '')))
+                  .join(', ') ||
+                (session.envelope.mailFrom ? session.envelope.mailFrom.address : ''),
               to: session.envelope.rcptTo.map((r) => r.address),
               subject: parsed.subject ?? '',
               text: parsed.text ?? '',

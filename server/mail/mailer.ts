@@ -41,11 +41,10 @@ export class Mailer {
     this.outbox = new OutboxRepository(db);
     const watcher = new NoticeWatcher(db, now, `${config.publicUrl}/console`);
     this.watcher = watcher;
-    const host = new URL(config.publicUrl).hostname;
     this.worker = new OutboxWorker(
       this.outbox,
       () => this.transport(),
-      `Tropline <no-reply@${host.includes('.') ? host : `${host}.localdomain`}>`,
+      config.mailFrom,
       now,
       () => watcher.run(),
     );
