@@ -107,4 +107,5 @@ export {
   type ComparisonRow,
 } from './lib/scenario-comparison/scenario-comparison-table';
 export { JobProgress } from './lib/job-progress/job-progress';
-export { jobState, type JobState } from './lib/job-progress/job-state';
+export { jobState, type JobState } from './lib/job-strip/job-state';
+export { JobStrip } from './lib/job-strip/job-strip';

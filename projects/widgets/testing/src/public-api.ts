@@ -11,6 +11,7 @@ export {
   type FakeTroplineClientOptions,
 } from './fake-tropline-client';
 export { ENGINE_ANALYSES } from './engine-analyses';
+export { benchmarkSweep } from './benchmark-sweep';
 export { TroplineChartHarness } from './chart-figure-harness';
 export { TrajectoryChartHarness } from './trajectory-chart-harness';
 export {

@@ -24,6 +24,7 @@ import {
   retry,
   switchMap,
   takeWhile,
+  tap,
   throwError,
   timer,
 } from 'rxjs';
@@ -95,6 +96,8 @@ export class TroplineClient {
       // The same key on a retried submission makes the server answer with the first job.
       const idempotencyKey = globalThis.crypto?.randomUUID?.() ?? `${Date.now()}-${Math.random()}`;
       return this.post<JobView<T>>(path, body, { 'Idempotency-Key': idempotencyKey }).pipe(
+        // Known from the submission on, so leaving before the first update still cancels it.
+        tap((job) => (last = job)),
         switchMap((job) => (finished(job) ? of(job) : this.follow<T>(job))),
         map((job) => {
           last = job;
@@ -118,9 +121,15 @@ export class TroplineClient {
       .pipe(this.mapErrors());
   }
 
-  /** A job's updates from its event stream, reconnecting when it ends; polling if it fails. */
+  /**
+   * A job's updates from its event stream (`GET /jobs/{id}/events`, one `job` event per
+   * change). A stream the server ends before the job finishes (its time limit) is opened again;
+   * one that cannot be reached at all falls back to polling `GET /jobs/{id}` every second. A
+   * finished job whose update carries no result is fetched once more for it.
+   */
   private follow<T>(job: JobView<T>): Observable<JobView<T>> {
     const url = `${this.options.apiUrl}/jobs/${encodeURIComponent(job.id)}`;
+    const fetchJob = () => this.http.get<JobView<T>>(url, { headers: this.headers() });
     const stream = defer(() => {
       let consumed = 0;
       let text = '';
@@ -147,21 +156,15 @@ export class TroplineClient {
           }),
         );
     });
-    const poll = of(job).pipe(
-      expand((j) =>
-        finished(j)
-          ? EMPTY
-          : timer(POLL_MS).pipe(
-              switchMap(() => this.http.get<JobView<T>>(url, { headers: this.headers() })),
-            ),
-      ),
-    );
+    const later = () => timer(POLL_MS).pipe(switchMap(fetchJob));
+    const poll = later().pipe(expand((j) => (finished(j) ? EMPTY : later())));
     return stream.pipe(
       repeat({ delay: () => timer(0) }),
       takeWhile((j) => !finished(j), true),
       catchError((err: unknown) =>
         err instanceof HttpErrorResponse && err.status === 0 ? poll : throwError(() => err),
       ),
+      concatMap((j) => (j.status === 'succeeded' && j.result === undefined ? fetchJob() : of(j))),
       this.mapErrors(),
       filter((j): j is JobView<T> => !!j),
     );

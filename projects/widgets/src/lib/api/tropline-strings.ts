@@ -21,6 +21,10 @@ export interface TroplineStrings {
   readonly exportCsv: string;
   /** Shown while a computation runs. */
   readonly computing: string;
+  /** Read with the progress bar of a bifurcation sweep. */
+  readonly computingSweep: string;
+  /** Read with the progress bar of a scenario comparison. */
+  readonly computingComparison: string;
   /** Cancel button of a background job. */
   readonly cancel: string;
   /** Shown when a background job was cancelled. */
@@ -123,6 +127,8 @@ export const DEFAULT_TROPLINE_STRINGS: TroplineStrings = {
   exportSvg: 'Drawing (SVG)',
   exportCsv: 'Table (CSV)',
   computing: 'Computing…',
+  computingSweep: 'Computing the bifurcation diagram',
+  computingComparison: 'Comparing the scenarios',
   cancel: 'Cancel',
   cancelled: 'The computation was cancelled.',
   jobProgress: (percent) => `${percent} done`,

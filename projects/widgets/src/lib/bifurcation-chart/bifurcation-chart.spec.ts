@@ -1,8 +1,8 @@
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { ChangeDetectionStrategy, Component, signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
-import { HASTINGS_POWELL_BENCHMARK } from '@tropline/core';
 import {
+  benchmarkSweep,
   BifurcationChartHarness,
   FakeTroplineClient,
   type FakeTroplineClientOptions,
@@ -12,18 +12,7 @@ import { ENGINE_ANALYSES } from '../../../testing/src/engine-analyses';
 import type { SweepRequest } from '../api/analysis-types';
 import { BifurcationChart } from './bifurcation-chart';
 
-const { model, initial } = HASTINGS_POWELL_BENCHMARK;
-const sweep: SweepRequest = {
-  model,
-  initial,
-  parameter: '/levels/1/handlingTime',
-  from: 0.4,
-  to: 0.6,
-  steps: 3,
-  observe: model.levels[2]!.id,
-  transient: 500,
-  window: 500,
-};
+const sweep = benchmarkSweep();
 
 @Component({
   imports: [BifurcationChart],

@@ -9,8 +9,8 @@ import { TROPLINE_OPTIONS } from '../api/tropline-options';
 import { TROPLINE_STRINGS } from '../api/tropline-strings';
 import { ChartFigure } from '../chart-figure/chart-figure';
 import { injectChartPalette } from '../chart-figure/chart-palette';
-import { JobProgress } from '../job-progress/job-progress';
-import { jobState } from '../job-progress/job-state';
+import { jobState } from '../job-strip/job-state';
+import { JobStrip } from '../job-strip/job-strip';
 import { parameterGroups } from '../parameter-form/parameter-form-schema';
 import { formatUnit } from '../trajectory-chart/trajectory-chart-format';
 import {
@@ -43,7 +43,7 @@ export function sweepAxes(request: SweepRequest): BifurcationAxes {
  */
 @Component({
   selector: 'tropline-bifurcation-chart',
-  imports: [NgxEchartsDirective, ChartFigure, JobProgress],
+  imports: [NgxEchartsDirective, ChartFigure, JobStrip],
   templateUrl: './bifurcation-chart.html',
   styleUrl: './bifurcation-chart.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -19,8 +19,8 @@ import { TROPLINE_STRINGS } from '../api/tropline-strings';
 import { CautionNotice } from '../caution-notice/caution-notice';
 import { ChartFigure } from '../chart-figure/chart-figure';
 import { injectChartPalette } from '../chart-figure/chart-palette';
-import { JobProgress } from '../job-progress/job-progress';
-import { jobState } from '../job-progress/job-state';
+import { jobState } from '../job-strip/job-state';
+import { JobStrip } from '../job-strip/job-strip';
 import {
   type ComparisonLayout,
   comparisonChartOptions,
@@ -42,7 +42,7 @@ let nextId = 0;
   imports: [
     NgxEchartsDirective,
     ChartFigure,
-    JobProgress,
+    JobStrip,
     CautionNotice,
     MatButtonToggle,
     MatButtonToggleGroup,
