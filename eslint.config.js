@@ -92,6 +92,33 @@ export default tseslint.config(
     },
   },
   {
+    // Browser code of the library, the portal and the elements needs only the contract (schemas,
+    // pointers, cautions): the full barrel carries the engine (odex, DOP853, the analyses) and
+    // builds every app against all of it. Specs, stories and the testing entry compute with the
+    // engine on purpose; the console previews projections in the page and keeps the barrel.
+    files: [
+      'projects/widgets/src/**/*.ts',
+      'projects/elements/**/*.ts',
+      'projects/demo-portal/**/*.ts',
+    ],
+    ignores: ['**/*.spec.ts', '**/*.stories.ts'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          paths: [
+            { name: '@tropline/core/node', message: 'Node-only; browsers use @tropline/core.' },
+            {
+              name: '@tropline/core',
+              message: "Import '@tropline/core/contract': the full barrel carries the engine.",
+            },
+          ],
+          patterns: [{ group: ['**/shared/*', '**/shared'], message: "Import '@tropline/core'." }],
+        },
+      ],
+    },
+  },
+  {
     files: ['projects/**/*.ts'],
     extends: [...angular.configs.tsRecommended],
     processor: angular.processInlineTemplates,

@@ -1,5 +1,5 @@
 import { Injectable, InjectionToken, inject } from '@angular/core';
-import type { ProjectionRequestInput, ProjectionResponse } from '@tropline/core';
+import type { ProjectionRequestInput, ProjectionResponse } from '@tropline/core/contract';
 import {
   type ComparisonRequest,
   type ComparisonResult,

@@ -1,4 +1,4 @@
-// First: configures zod before @tropline/core builds its presets (see the file).
+// First: configures zod before any contract schema parses (see the file).
 import './zod-jitless';
 import {
   type ApplicationRef,

@@ -5,7 +5,7 @@ import {
   type ProjectionRequestInput,
   type ProjectionResponse,
   type ScenarioContent,
-} from '@tropline/core';
+} from '@tropline/core/contract';
 import {
   type ParameterBounds,
   problemMessage,

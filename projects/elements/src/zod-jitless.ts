@@ -1,6 +1,6 @@
 import { config } from 'zod';
 
-// Imported first by main.ts, before @tropline/core parses its presets: zod otherwise probes
-// for `new Function` support, which a page whose policy forbids eval reports as a violation.
-// The interpreted parsers give the same answers.
+// Imported first by main.ts, before any schema of @tropline/core/contract parses: zod otherwise
+// probes for `new Function` support, which a page whose policy forbids eval reports as a
+// violation. The interpreted parsers give the same answers.
 config({ jitless: true });

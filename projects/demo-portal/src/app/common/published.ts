@@ -8,7 +8,7 @@ import {
   type Signal,
 } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
-import type { ChainModel, ProjectionRequestInput } from '@tropline/core';
+import type { ChainModel, ProjectionRequestInput } from '@tropline/core/contract';
 import {
   type ComparisonRequest,
   type RegimeRequest,

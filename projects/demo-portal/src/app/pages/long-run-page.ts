@@ -8,7 +8,7 @@ import {
   TroplineClient,
   type TroplineApiError,
 } from '@tropline/widgets';
-import type { Equilibrium } from '@tropline/core';
+import type { Equilibrium } from '@tropline/core/contract';
 import { catchError, map, of, switchMap } from 'rxjs';
 import { PublicCaution } from '../common/public-caution';
 import {

@@ -1,4 +1,4 @@
-import type { ChainModel, Equilibrium } from '@tropline/core';
+import type { ChainModel, Equilibrium } from '@tropline/core/contract';
 
 /** The long-run behaviour of a model, as the API names it. */
 export type Regime = 'equilibrium' | 'cycle' | 'chaotic' | 'collapse';

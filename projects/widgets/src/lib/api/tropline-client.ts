@@ -6,7 +6,11 @@ import {
   type HttpResponse,
 } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
-import type { ChainModel, ProjectionRequestInput, ProjectionResponse } from '@tropline/core';
+import type {
+  ChainModel,
+  ProjectionRequestInput,
+  ProjectionResponse,
+} from '@tropline/core/contract';
 import {
   catchError,
   concatMap,

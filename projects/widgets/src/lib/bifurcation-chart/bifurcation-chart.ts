@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
-import { getParameter } from '@tropline/core';
+import { getParameter } from '@tropline/core/contract';
 import type { EChartsType } from 'echarts/core';
 import { NgxEchartsDirective } from 'ngx-echarts';
 import { Subject } from 'rxjs';

@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, inject, input } from '@angular/core';
-import { PROJECTION_CAUTIONS } from '@tropline/core';
+import { PROJECTION_CAUTIONS } from '@tropline/core/contract';
 import { TROPLINE_STRINGS } from '../api/tropline-strings';
 
 /** The cautions every projection carries, shown by default wherever projections are shown. */

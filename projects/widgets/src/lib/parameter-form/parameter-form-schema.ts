@@ -1,4 +1,9 @@
-import { type ChainModel, getParameter, parameterPointers, withParameter } from '@tropline/core';
+import {
+  type ChainModel,
+  getParameter,
+  parameterPointers,
+  withParameter,
+} from '@tropline/core/contract';
 import { DEFAULT_TROPLINE_STRINGS, type TroplineStrings } from '../api/tropline-strings';
 import { formatUnit } from '../trajectory-chart/trajectory-chart-format';
 

@@ -5,7 +5,7 @@ import { MatButton } from '@angular/material/button';
 import { MatError, MatFormField, MatHint, MatLabel, MatSuffix } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
 import { MatSlider, MatSliderThumb } from '@angular/material/slider';
-import type { ChainModel } from '@tropline/core';
+import type { ChainModel } from '@tropline/core/contract';
 import { filter, map, switchMap } from 'rxjs';
 import { TROPLINE_OPTIONS } from '../api/tropline-options';
 import { TROPLINE_STRINGS } from '../api/tropline-strings';

@@ -1,4 +1,9 @@
-import type { ChainModel, ConsumerLevel, Equilibrium, ProducerLevel } from '@tropline/core';
+import type {
+  ChainModel,
+  ConsumerLevel,
+  Equilibrium,
+  ProducerLevel,
+} from '@tropline/core/contract';
 import type { EChartsCoreOption } from 'echarts/core';
 import { DEFAULT_TROPLINE_STRINGS, type TroplineStrings } from '../api/tropline-strings';
 import type { ChartTable } from '../chart-figure/chart-export';

@@ -8,7 +8,7 @@ import {
   linkedSignal,
   signal,
 } from '@angular/core';
-import type { ChainModel, Equilibrium } from '@tropline/core';
+import type { ChainModel, Equilibrium } from '@tropline/core/contract';
 import type { EChartsType } from 'echarts/core';
 import { NgxEchartsDirective } from 'ngx-echarts';
 import { TROPLINE_OPTIONS } from '../api/tropline-options';

@@ -7,7 +7,7 @@ import {
   linkedSignal,
 } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
-import type { ChainModel, Equilibrium, ProjectionResponse } from '@tropline/core';
+import type { ChainModel, Equilibrium, ProjectionResponse } from '@tropline/core/contract';
 import { catchError, debounceTime, map, of, startWith, switchMap } from 'rxjs';
 import type { RegimeResponse } from '../api/analysis-types';
 import type { TroplineApiError } from '../api/problem-message';

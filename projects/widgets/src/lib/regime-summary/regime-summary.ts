@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
-import type { ChainModel, Equilibrium } from '@tropline/core';
+import type { ChainModel, Equilibrium } from '@tropline/core/contract';
 import type { RegimeResponse } from '../api/analysis-types';
 import type { TroplineApiError } from '../api/problem-message';
 import { TROPLINE_OPTIONS } from '../api/tropline-options';

@@ -1,4 +1,4 @@
-import type { ChainModel } from '@tropline/core';
+import type { ChainModel } from '@tropline/core/contract';
 import type { EChartsCoreOption } from 'echarts/core';
 import type { ComparisonResult } from '../api/analysis-types';
 import { DEFAULT_TROPLINE_STRINGS, type TroplineStrings } from '../api/tropline-strings';

@@ -1,4 +1,4 @@
-import type { ChainModel } from '@tropline/core';
+import type { ChainModel } from '@tropline/core/contract';
 import type { ComparisonResult, LevelOutcome } from '../api/analysis-types';
 import { DEFAULT_TROPLINE_STRINGS, type TroplineStrings } from '../api/tropline-strings';
 import { formatUnit } from '../trajectory-chart/trajectory-chart-format';

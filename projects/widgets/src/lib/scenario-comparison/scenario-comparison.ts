@@ -8,7 +8,7 @@ import {
   signal,
 } from '@angular/core';
 import { MatButtonToggle, MatButtonToggleGroup } from '@angular/material/button-toggle';
-import type { ChainModel } from '@tropline/core';
+import type { ChainModel } from '@tropline/core/contract';
 import type { EChartsType } from 'echarts/core';
 import { NgxEchartsDirective } from 'ngx-echarts';
 import { Subject } from 'rxjs';
