@@ -7,3 +7,7 @@ export {
   /** The piscina worker pool the server runs analyses on. */
   createAnalysisPool,
 } from './pool/analysis-pool';
+export {
+  /** Lowers a worker thread's own scheduling priority (Linux), for the server's pools. */
+  lowerThreadPriority,
+} from './pool/thread-priority';

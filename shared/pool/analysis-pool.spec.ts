@@ -1,10 +1,16 @@
+import { readdirSync, readFileSync, readlinkSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createAnalysisPool, type AnalysisPool } from './analysis-pool';
+import { runSweepRange } from '../sweep/run-sweep';
+import { assembleRegimeMap, runRegimeMapCells } from '../sweep/run-regime-map';
+import { runEnsembleMembers } from '../ensemble/run-ensemble-members';
+import { summariseEnsemble } from '../ensemble/summarise-ensemble';
 import {
   validateSweepRequest,
   validateRegimeMapRequest,
 } from '../analyses-contract/sweep-contract';
 import { validateEnsembleRequest } from '../analyses-contract/ensemble-contract';
+import { validateRegimeRequest } from '../analyses-contract/regime-contract';
 import { validateComparisonRequest } from '../analyses-contract/comparison-contract';
 import { AnalysisBoundsError } from '../analyses-contract/analysis-limits';
 import { ModelValidationError } from '../model/validation-issue';
@@ -55,6 +61,14 @@ const map = ok(
     window: 300,
   }),
 );
+const regime = ok(
+  validateRegimeRequest({
+    model: benchmarkChain(3),
+    initial: BENCHMARK_INITIAL,
+    transient: 200,
+    window: 200,
+  }),
+);
 const comparison = ok(
   validateComparisonRequest({
     model: benchmarkChain(3),
@@ -97,6 +111,56 @@ describe('analysis pool', () => {
     ]);
     expect(c2).toEqual(c1);
     expect(c1.scenarios.map((s) => s.name)).toEqual(['baseline', 'Fewer fish']);
+  });
+
+  // Chunks interleave items (chunk c holds c, c + k, …), so the reassembly by index is checked
+  // against one in-process run over all items in order.
+  it('puts every item back in its place: the same as one in-process run in order', async () => {
+    const wide = { ...sweep, steps: 11 };
+    const s = await two.runSweep(wide);
+    expect(s.points).toEqual(runSweepRange(wide, 0, wide.steps).points);
+    const m = await two.runRegimeMap(map);
+    expect(m).toEqual(assembleRegimeMap(map, runRegimeMapCells(map, 0, 6)));
+    const e = await two.runEnsemble(ensemble);
+    const all = runEnsembleMembers(ensemble, 0, ensemble.members);
+    expect(e).toEqual(summariseEnsemble(ensemble, all.series, all.crossings));
+  });
+
+  // Turn order, with one worker so it is fixed by the rules rather than by timing: a sweep of
+  // tenant A is cut into 4 chunks and its first goes out at once; tenant B's sweep (1 chunk)
+  // then waits only for A's second chunk (A went to the back of the turn after its first and B
+  // joined after it), not for all of A's; an interactive regime goes right after the chunk
+  // that is running.
+  it('takes turns between owners chunk by chunk, interactive runs first', async () => {
+    const events: string[] = [];
+    const a = one.runSweep(
+      { ...sweep, steps: 8 },
+      { owner: 'a', onProgress: (f) => f > 0 && events.push(`a ${f}`) },
+    );
+    const b = one
+      .runSweep({ ...sweep, steps: 1 }, { owner: 'b' })
+      .then(() => events.push('b done'));
+    await Promise.all([a, b]);
+    expect(events).toEqual(['a 0.25', 'a 0.5', 'b done', 'a 0.75', 'a 1']);
+    events.length = 0;
+    const c = one.runSweep(
+      { ...sweep, steps: 8 },
+      { owner: 'a', onProgress: (f) => f > 0 && events.push(`a ${f}`) },
+    );
+    const assessed = one.runRegime(regime).then(() => events.push('regime done'));
+    await Promise.all([c, assessed]);
+    expect(events).toEqual(['a 0.25', 'regime done', 'a 0.5', 'a 0.75', 'a 1']);
+  });
+
+  // Linux keeps a nice value per thread (setpriority(2), NOTES), shown in field 19 of
+  // /proc/<pid>/task/<tid>/stat (proc(5)). The workers lower themselves; this thread stays.
+  it('runs its workers at nice 10, not the caller', () => {
+    const nice = (tid: string) =>
+      Number(readFileSync(`/proc/self/task/${tid}/stat`, 'utf8').split(') ')[1]!.split(' ')[16]);
+    const me = readlinkSync('/proc/thread-self').split('/').pop()!;
+    const niced = readdirSync('/proc/self/task').filter((tid) => nice(tid) === 10);
+    expect(nice(me)).toBe(0);
+    expect(niced.length).toBeGreaterThanOrEqual(one.size + two.size);
   });
 
   it('reports progress rising to 1', async () => {

@@ -6,25 +6,38 @@ import type { RegimeRequest } from '../analyses-contract/regime-contract';
 import type { RegimeMapRequest, SweepRequest } from '../analyses-contract/sweep-contract';
 import type { EnsembleRequest } from '../analyses-contract/ensemble-contract';
 import type { ComparisonRequest } from '../analyses-contract/comparison-contract';
-import { assertSweepBounds, type SweepRange } from '../sweep/run-sweep';
+import { assertSweepBounds, sweepWork, type SweepRange } from '../sweep/run-sweep';
 import {
   assembleRegimeMap,
   assertRegimeMapBounds,
+  regimeMapWork,
   type RegimeMapCell,
 } from '../sweep/run-regime-map';
-import { assertEnsembleBounds, type EnsembleMembers } from '../ensemble/run-ensemble-members';
+import {
+  assertEnsembleBounds,
+  ensembleWork,
+  type EnsembleMembers,
+} from '../ensemble/run-ensemble-members';
 import { summariseEnsemble, type EnsembleResult } from '../ensemble/summarise-ensemble';
 import { assertComparisonBounds, type ScenarioOutcome } from '../compare/compare-scenarios';
 import type { SweepPoint } from '../sweep/sweep-point';
 import type { AnalysisTask, TaskFailure } from './analysis-task';
-import { planChunks } from './plan-chunks';
+import { chunkCount, planChunks } from './plan-chunks';
+import { FairScheduler, type RunPriority } from './fair-scheduler';
 
-/** Progress and cancellation for one analysis run. */
+/** Progress, cancellation and scheduling of one analysis run. */
 export interface AnalysisRunOptions {
   /** Called with the fraction done (0..1) each time a chunk of items finishes. */
   readonly onProgress?: (fraction: number) => void;
   /** Aborting it cancels queued and running work; the promise rejects with an AbortError. */
   readonly signal?: AbortSignal;
+  /** Whose run it is (the server passes the tenant): owners' chunks take turns. Default "". */
+  readonly owner?: string;
+  /**
+   * `interactive` (a caller waits on the answer) goes before any `batch` run's next chunk.
+   * Default `batch`, except `runRegime` (a synchronous request), which defaults to interactive.
+   */
+  readonly priority?: RunPriority;
 }
 
 /** A sweep's result with integrator counters. */
@@ -64,17 +77,33 @@ export interface AnalysisPool {
 export interface AnalysisPoolOptions {
   /** Worker threads, 1..64. */
   readonly size: number;
-  /** Chunks queued per worker (finer gives smoother progress and balance); default 4. */
+  /** Fewest chunks per worker a run is cut into (finer: smoother progress and balance); default 4. */
   readonly chunksPerWorker?: number;
+  /**
+   * Nice value the worker threads lower themselves to (Linux; elsewhere ignored), so a busy pool
+   * yields a core to the request thread the moment it needs one; default 10, 0 leaves them be.
+   */
+  readonly niceness?: number;
 }
 
 const WORKER_FILE = new URL('./analysis-worker.mjs', import.meta.url).href;
 
+/** A run's chunks and the items (indices) each holds: results go back by them. */
+interface Plan {
+  readonly tasks: AnalysisTask[];
+  readonly items: readonly (readonly number[])[];
+}
+
+/** A plan of one task per item (scenarios, a regime). */
+const single = (tasks: AnalysisTask[]): Plan => ({ tasks, items: tasks.map((_, i) => [i]) });
+
 /**
  * Starts a piscina pool of `size` workers for the analyses. Items (sweep values, map cells,
- * ensemble members, scenarios) are split into chunks and results are reassembled by index, and
- * each item is computed independently (ensemble members from their own random streams), so a
- * request gives the same result whatever the pool size. Bounds are checked before any work.
+ * ensemble members, scenarios) are cut into interleaved chunks of bounded work, handed one at a
+ * time to whichever worker is free by a {@link FairScheduler} (interactive runs first, owners in
+ * turn), and reassembled by index; each item is computed independently (ensemble members from
+ * their own random streams), so a request gives the same result whatever the pool size. Bounds
+ * are checked before any work.
  */
 export function createAnalysisPool(options: AnalysisPoolOptions): AnalysisPool {
   const size = options.size;
@@ -87,30 +116,43 @@ export function createAnalysisPool(options: AnalysisPoolOptions): AnalysisPool {
     minThreads: size,
     maxThreads: size,
     idleTimeout: 60_000,
+    workerData: { niceness: options.niceness ?? 10 },
   });
+  // One chunk per worker at a time: what waits, waits here, where turns are kept.
+  const scheduler = new FairScheduler<AnalysisTask>(size, (task, signal) =>
+    piscina.run(task, { signal: signal ?? null }),
+  );
 
-  async function runTasks<R>(tasks: AnalysisTask[], weights: number[], o: AnalysisRunOptions) {
+  async function runTasks<R>(plan: Plan, o: AnalysisRunOptions, priority: RunPriority) {
     o.signal?.throwIfAborted();
-    const total = weights.reduce((a, b) => a + b, 0);
+    const total = plan.items.reduce((a, c) => a + c.length, 0);
     let done = 0;
     o.onProgress?.(0);
-    const results = await Promise.all(
-      tasks.map(async (task, i) => {
-        const r = (await piscina.run(task, { signal: o.signal ?? null })) as R | TaskFailure;
-        if (isFailure(r)) throw rehydrate(r);
-        done += weights[i]!;
-        o.onProgress?.(done / total);
-        return r as R;
-      }),
+    const results = await scheduler.run(
+      { owner: o.owner ?? '', priority: o.priority ?? priority },
+      plan.tasks,
+      {
+        signal: o.signal,
+        onEach: (i, r) => {
+          if (isFailure(r)) throw rehydrate(r);
+          done += plan.items[i]!.length;
+          o.onProgress?.(done / total);
+        },
+      },
     );
-    return results;
+    return results as R[];
   }
 
-  const ranged = <T extends 'sweep' | 'map' | 'ensemble'>(kind: T, request: unknown, n: number) => {
-    const chunks = planChunks(n, size * perWorker);
+  const chunked = <T extends 'sweep' | 'map' | 'ensemble'>(
+    kind: T,
+    request: unknown,
+    items: number,
+    work: number,
+  ): Plan => {
+    const chunks = planChunks(items, chunkCount(items, work, size, perWorker));
     return {
-      tasks: chunks.map(([start, end]) => ({ kind, request, start, end }) as AnalysisTask),
-      weights: chunks.map(([start, end]) => end - start),
+      tasks: chunks.map((c) => ({ kind, request, items: c }) as AnalysisTask),
+      items: chunks,
     };
   };
 
@@ -119,15 +161,15 @@ export function createAnalysisPool(options: AnalysisPoolOptions): AnalysisPool {
     async runSweep(req, o = {}) {
       assertSweepBounds(req);
       // A continued sweep carries state from value to value, so it is one ordered task.
-      const plan = req.continuation
-        ? {
-            tasks: [{ kind: 'sweep', request: req, start: 0, end: req.steps } as AnalysisTask],
-            weights: [1],
-          }
-        : ranged('sweep', req, req.steps);
-      const parts = await runTasks<SweepRange>(plan.tasks, plan.weights, o);
+      const all = Array.from({ length: req.steps }, (_, i) => i);
+      const plan: Plan = req.continuation
+        ? { tasks: [{ kind: 'sweep', request: req, items: all }], items: [all] }
+        : chunked('sweep', req, req.steps, sweepWork(req));
+      const parts = await runTasks<SweepRange>(plan, o, 'batch');
+      const points: SweepPoint[] = new Array<SweepPoint>(req.steps);
+      plan.items.forEach((c, j) => c.forEach((i, k) => (points[i] = parts[j]!.points[k]!)));
       return {
-        points: parts.flatMap((p) => p.points),
+        points,
         diagnostics: {
           steps: parts.reduce((a, p) => a + p.steps, 0),
           rhsEvaluations: parts.reduce((a, p) => a + p.evaluations, 0),
@@ -136,24 +178,32 @@ export function createAnalysisPool(options: AnalysisPoolOptions): AnalysisPool {
     },
     async runRegimeMap(req, o = {}) {
       assertRegimeMapBounds(req);
-      const plan = ranged('map', req, req.x.steps * req.y.steps);
-      const parts = await runTasks<RegimeMapCell[]>(plan.tasks, plan.weights, o);
-      return assembleRegimeMap(req, parts.flat());
+      const cells = req.x.steps * req.y.steps;
+      const plan = chunked('map', req, cells, regimeMapWork(req));
+      const parts = await runTasks<RegimeMapCell[]>(plan, o, 'batch');
+      const flat = new Array<RegimeMapCell>(cells);
+      plan.items.forEach((c, j) => c.forEach((i, k) => (flat[i] = parts[j]![k]!)));
+      return assembleRegimeMap(req, flat);
     },
     async runEnsemble(req, o = {}) {
       assertEnsembleBounds(req);
-      const plan = ranged('ensemble', req, req.members);
-      const parts = await runTasks<EnsembleMembers>(plan.tasks, plan.weights, o);
+      const plan = chunked('ensemble', req, req.members, ensembleWork(req));
+      const parts = await runTasks<EnsembleMembers>(plan, o, 'batch');
+      // Each chunk's members come member-major in its item order; put each block at its index.
       const series = new Float64Array(parts.reduce((a, p) => a + p.series.length, 0));
       const crossings = new Float64Array(parts.reduce((a, p) => a + p.crossings.length, 0));
-      let s = 0;
-      let c = 0;
-      for (const p of parts) {
-        series.set(p.series, s);
-        crossings.set(p.crossings, c);
-        s += p.series.length;
-        c += p.crossings.length;
-      }
+      const perSeries = series.length / req.members;
+      const perCrossings = crossings.length / req.members;
+      plan.items.forEach((c, j) =>
+        c.forEach((m, k) => {
+          const p = parts[j]!;
+          series.set(p.series.subarray(k * perSeries, (k + 1) * perSeries), m * perSeries);
+          crossings.set(
+            p.crossings.subarray(k * perCrossings, (k + 1) * perCrossings),
+            m * perCrossings,
+          );
+        }),
+      );
       return summariseEnsemble(req, series, crossings);
     },
     async runComparison(req, o = {}) {
@@ -162,18 +212,15 @@ export function createAnalysisPool(options: AnalysisPoolOptions): AnalysisPool {
         { length: req.scenarios.length + 1 },
         (_, index) => ({ kind: 'scenario', request: req, index }) as AnalysisTask,
       );
-      const scenarios = await runTasks<ScenarioOutcome>(
-        tasks,
-        tasks.map(() => 1),
-        o,
-      );
+      const scenarios = await runTasks<ScenarioOutcome>(single(tasks), o, 'batch');
       const thresholds: Record<string, number> = {};
       const thr = extinctionThresholds(req.model, req.thresholds);
       req.model.levels.forEach((l, i) => (thresholds[l.id] = thr[i]!));
       return { thresholds, scenarios };
     },
     async runRegime(req, o = {}) {
-      const [report] = await runTasks<RegimeReport>([{ kind: 'regime', request: req }], [1], o);
+      const plan = single([{ kind: 'regime', request: req }]);
+      const [report] = await runTasks<RegimeReport>(plan, o, 'interactive');
       return report!;
     },
     close: () => piscina.close(),

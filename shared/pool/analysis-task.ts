@@ -3,30 +3,22 @@ import type { RegimeRequest } from '../analyses-contract/regime-contract';
 import type { RegimeMapRequest, SweepRequest } from '../analyses-contract/sweep-contract';
 import type { EnsembleRequest } from '../analyses-contract/ensemble-contract';
 import type { ComparisonRequest } from '../analyses-contract/comparison-contract';
-import { runSweepRange } from '../sweep/run-sweep';
+import { runSweepRange, type SweepRange } from '../sweep/run-sweep';
 import { runRegimeMapCells } from '../sweep/run-regime-map';
-import { runEnsembleMembers } from '../ensemble/run-ensemble-members';
+import { runEnsembleMembers, type EnsembleMembers } from '../ensemble/run-ensemble-members';
 import { runScenario } from '../compare/compare-scenarios';
 
-/** One unit of work for a pool worker: a range of items of one analysis. */
+/**
+ * One unit of work for a pool worker: some items of one analysis, by index (ascending; a
+ * continued sweep's items are 0..steps-1 in order, since each value starts from the last).
+ */
 export type AnalysisTask =
-  | {
-      readonly kind: 'sweep';
-      readonly request: SweepRequest;
-      readonly start: number;
-      readonly end: number;
-    }
-  | {
-      readonly kind: 'map';
-      readonly request: RegimeMapRequest;
-      readonly start: number;
-      readonly end: number;
-    }
+  | { readonly kind: 'sweep'; readonly request: SweepRequest; readonly items: readonly number[] }
+  | { readonly kind: 'map'; readonly request: RegimeMapRequest; readonly items: readonly number[] }
   | {
       readonly kind: 'ensemble';
       readonly request: EnsembleRequest;
-      readonly start: number;
-      readonly end: number;
+      readonly items: readonly number[];
     }
   | { readonly kind: 'scenario'; readonly request: ComparisonRequest; readonly index: number }
   | { readonly kind: 'regime'; readonly request: RegimeRequest };
@@ -44,11 +36,13 @@ export function runAnalysisTask(task: AnalysisTask): unknown {
   try {
     switch (task.kind) {
       case 'sweep':
-        return runSweepRange(task.request, task.start, task.end);
+        return task.request.continuation
+          ? runSweepRange(task.request, task.items[0]!, task.items[task.items.length - 1]! + 1)
+          : mergeSweepRanges(task.items.map((i) => runSweepRange(task.request, i, i + 1)));
       case 'map':
-        return runRegimeMapCells(task.request, task.start, task.end);
+        return task.items.flatMap((i) => runRegimeMapCells(task.request, i, i + 1));
       case 'ensemble':
-        return runEnsembleMembers(task.request, task.start, task.end);
+        return mergeMembers(task.items.map((m) => runEnsembleMembers(task.request, m, m + 1)));
       case 'scenario':
         return runScenario(task.request, task.index);
       case 'regime':
@@ -60,6 +54,35 @@ export function runAnalysisTask(task: AnalysisTask): unknown {
     for (const [k, v] of Object.entries(err)) details[k] = v;
     return { failed: true, name: err.name, message: err.message, details } satisfies TaskFailure;
   }
+}
+
+/** One task's sweep points, in the order of its items, with the summed counters. */
+function mergeSweepRanges(parts: SweepRange[]): SweepRange {
+  return {
+    points: parts.flatMap((p) => p.points),
+    steps: parts.reduce((a, p) => a + p.steps, 0),
+    evaluations: parts.reduce((a, p) => a + p.evaluations, 0),
+  };
+}
+
+/** One task's members, concatenated in the order of its items (member-major, as one run). */
+function mergeMembers(parts: EnsembleMembers[]): EnsembleMembers {
+  const series = new Float64Array(parts.reduce((a, p) => a + p.series.length, 0));
+  const crossings = new Float64Array(parts.reduce((a, p) => a + p.crossings.length, 0));
+  let s = 0;
+  let c = 0;
+  for (const p of parts) {
+    series.set(p.series, s);
+    crossings.set(p.crossings, c);
+    s += p.series.length;
+    c += p.crossings.length;
+  }
+  return {
+    series,
+    crossings,
+    steps: parts.reduce((a, p) => a + p.steps, 0),
+    evaluations: parts.reduce((a, p) => a + p.evaluations, 0),
+  };
 }
 
 export default runAnalysisTask;
