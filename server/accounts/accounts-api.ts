@@ -6,6 +6,7 @@ import { mailboxRoutes } from '../mail/mailbox-routes';
 import { Mailer, type MailerOptions } from '../mail/mailer';
 import { consoleUsageRoutes } from '../quotas/console-usage-routes';
 import type { QuotasService } from '../quotas/quotas-service';
+import { ownerTenantRoutes, planOffersRoutes } from '../tenants/tenant-routes';
 import { auditEventsRoutes } from './audit-events-routes';
 import { consoleKeysRoutes } from './console-keys-routes';
 import { InvitationsService } from './invitations-service';
@@ -29,6 +30,8 @@ export const SESSION_PATHS = [
   '/audit-events',
   '/console',
   '/tenants',
+  '/tenant',
+  '/plan-offers',
 ];
 
 /** How often expired sessions and old sign-in failures are removed outside tests. */
@@ -50,7 +53,8 @@ export interface AccountsApi {
 
 /**
  * Sign-in, sessions, members, invitations, password resets, the audit trail, key management
- * for signed-in admins, the operator's platform routes and the development mailbox.
+ * for signed-in admins, the owner's tenant and plan, the operator's platform routes (tenants,
+ * quotas, the plan catalogue) and the development mailbox.
  */
 export function accountsApi(
   db: Knex,
@@ -92,7 +96,9 @@ export function accountsApi(
   router.use(auditEventsRoutes(db));
   router.use(consoleKeysRoutes(db, keyed.keys));
   router.use(consoleUsageRoutes(db, now));
+  router.use(ownerTenantRoutes(db, now, () => mailer.afterCommit()));
   router.use(operatorRoutes(db, keyed.quotas, now));
+  router.use(planOffersRoutes(db, now));
   if (mailer.catcher) router.use(mailboxRoutes(mailer.catcher));
 
   let housekeeping: NodeJS.Timeout | undefined;

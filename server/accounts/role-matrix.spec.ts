@@ -80,6 +80,43 @@ const ROUTES: readonly RouteCase[] = [
     allowed: 200,
     body: () => ({ monthlyUnits: 250_000 }),
   },
+  { method: 'get', path: '/tenant', action: 'tenant:manage', allowed: 200 },
+  {
+    method: 'patch',
+    path: '/tenant',
+    action: 'tenant:manage',
+    allowed: 200,
+    body: () => ({ contactEmail: null }),
+  },
+  { method: 'get', path: '/tenant/plan', action: 'plan:manage', allowed: 200 },
+  {
+    method: 'put',
+    path: '/tenant/plan',
+    action: 'plan:manage',
+    allowed: 200,
+    body: () => ({ offer: 'authority' }),
+  },
+  { method: 'get', path: '/plan-offers', action: 'plans:offer', allowed: 200 },
+  {
+    method: 'post',
+    path: '/plan-offers',
+    action: 'plans:offer',
+    allowed: 201,
+    body: () => ({
+      id: `matrix-${++serial}`,
+      name: 'Matrix plan',
+      monthlyUnits: 1000,
+      perMinute: 10,
+      browserPerMinute: 1,
+    }),
+  },
+  {
+    method: 'patch',
+    path: '/plan-offers/no-such-plan',
+    action: 'plans:offer',
+    allowed: 404,
+    body: () => ({ available: false }),
+  },
 ];
 
 const ROLES = [...TENANT_ROLES, 'operator'] as const;
@@ -126,7 +163,7 @@ describe('can()', () => {
   it('keeps platform actions to the operator and tenant actions out of its hands', () => {
     fc.assert(
       fc.property(fc.constantFrom(...ACTIONS), fc.constantFrom(...TENANT_ROLES), (action, role) => {
-        const platform = action === 'tenants:create' || action === 'quotas:set';
+        const platform = ['tenants:create', 'quotas:set', 'plans:offer'].includes(action);
         expect(can('operator', action)).toBe(platform);
         if (platform) expect(can(role, action)).toBe(false);
       }),

@@ -141,6 +141,8 @@ export function quotaAlertMail(input: {
   period: string;
   resetsAt: string;
   consoleUrl: string;
+  /** Sent to the tenant's contact address rather than to an owner or admin. */
+  asContact?: boolean;
 }): MailMessage {
   const full = input.threshold >= 100;
   return compose(
@@ -158,10 +160,13 @@ export function quotaAlertMail(input: {
             'Tropline widgets will show an error in the meantime.'
           : 'Nothing is refused yet. At 100 % requests that compute will be refused until the ' +
             'quota resets.',
-        `The quota resets at ${when(input.resetsAt)}. An owner can ask for a larger plan.`,
+        `The quota resets at ${when(input.resetsAt)}. An owner can choose a larger plan in ` +
+          'the console (Tenant and plan); the units used so far carry over.',
       ],
       action: { label: 'See usage', url: input.consoleUrl },
-      footnote: `You receive this because you are an owner or admin of ${input.tenantName}.`,
+      footnote: input.asContact
+        ? `You receive this because this address is the contact for ${input.tenantName}.`
+        : `You receive this because you are an owner or admin of ${input.tenantName}.`,
     },
   );
 }

@@ -17,7 +17,8 @@ export const QUOTA_THRESHOLDS = [80, 100] as const;
 
 /**
  * Turns committed facts into notices: key changes read from the audit trail (whoever made
- * them: console, server key or CLI) and quota thresholds read from the usage counters. Each
+ * them: console, server key or CLI) and quota thresholds read from the usage counters (mailed
+ * to owners, admins and the tenant's contact address). Each
  * notice is queued in the same transaction that records it as seen, so none is sent twice and
  * none is lost.
  */
@@ -122,15 +123,20 @@ export class NoticeWatcher {
         .where('p.monthly_units', '>', 0)
         .whereRaw('u.used * 100 >= p.monthly_units * ?', [threshold])
         .whereNull('a.tenant_id')
-        .select('u.tenant_id', 'u.used', 'p.monthly_units', 't.name');
+        .select('u.tenant_id', 'u.used', 'p.monthly_units', 't.name', 't.contact_email');
       for (const row of crossed) {
         const at = new Date(nowMs).toISOString();
         try {
           await this.db.transaction(async (trx) => {
             // The primary key lets only one process record (and so mail) each threshold.
             await trx('quota_alerts').insert({ tenant_id: row.tenant_id, period, threshold, at });
-            const emails = await new UsersRepository(trx).adminEmails(row.tenant_id);
-            const messages = emails.map((to) =>
+            const members = await new UsersRepository(trx).adminEmails(row.tenant_id);
+            const recipients = members.map((to) => ({ to, asContact: false }));
+            // The tenant's contact address hears too, once, unless a member already has it.
+            const contact = row.contact_email as string | null;
+            if (contact && !members.includes(contact))
+              recipients.push({ to: contact, asContact: true });
+            const messages = recipients.map(({ to, asContact }) =>
               quotaAlertMail({
                 to,
                 tenantName: row.name,
@@ -140,6 +146,7 @@ export class NoticeWatcher {
                 period,
                 resetsAt: new Date(nextPeriodStart(nowMs)).toISOString(),
                 consoleUrl: `${this.consoleUrl}/usage`,
+                asContact,
               }),
             );
             await this.outbox.enqueue(messages, at, trx);

@@ -30,6 +30,7 @@ export const ACTIONS = [
   'plan:manage',
   'tenants:create',
   'quotas:set',
+  'plans:offer',
 ] as const;
 
 /** One action of the matrix. */
@@ -54,14 +55,15 @@ const ADMINISTER: readonly Action[] = [
 /**
  * The matrix. Viewers read; analysts also edit scenarios and data, run analyses and publish;
  * admins also manage keys and members and read the audit trail; owners also manage the tenant
- * and its plan. The operator acts on the platform (tenants, quotas), not inside a tenant.
+ * (name, contact address) and choose its plan among those on offer. The operator acts on the
+ * platform, not inside a tenant: creates tenants, sets their quota numbers, offers plans.
  */
 export const ROLE_MATRIX: Readonly<Record<Role, readonly Action[]>> = {
   viewer: READ,
   analyst: EDIT,
   admin: ADMINISTER,
   owner: [...ADMINISTER, 'tenant:manage', 'plan:manage'],
-  operator: ['tenants:create', 'quotas:set'],
+  operator: ['tenants:create', 'quotas:set', 'plans:offer'],
 };
 
 /** Whether `role` may perform `action`; an unknown role may do nothing. */
