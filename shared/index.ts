@@ -355,6 +355,8 @@ export type {
   CalibrationResult,
   /** One fitted value with its standard error. */
   Estimate,
+  /** A segment's fitted start state (segmented fits). */
+  SegmentStart,
   /** Progress and cancellation of a calibration. */
   CalibrateOptions,
 } from './calibrate/calibrate-chain';

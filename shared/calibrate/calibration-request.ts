@@ -17,6 +17,8 @@ export const CALIBRATION_LIMITS = {
   maxIterations: 200,
   /** Longest time span of the data, in model time units. */
   maxSpan: 5000,
+  /** Most segments of a segmented fit (each adds one fitted start value per level). */
+  maxSegments: 100,
 } as const;
 
 const finite = (label: string) =>
@@ -58,7 +60,8 @@ export const observationSeriesSchema = z.strictObject({
 /**
  * The body of a calibration: the model and start it refines, the data, what to fit. With
  * `segmentLength` the data are cut into windows of that length, each integrated from its own
- * observed start (the remedy for a chaotic fit); initial states are then taken from the data.
+ * start state, fitted alongside the parameters from the surveys at its first row (the remedy
+ * for a chaotic fit); `initialStates` then do not apply.
  */
 export const calibrationRequestSchema = z.strictObject({
   model: z.unknown(),
@@ -122,7 +125,8 @@ function boxIssues(
   if (req.segmentLength !== undefined && req.initialStates?.length) {
     out.push({
       pointer: '/initialStates',
-      message: 'segments start from their observed states; fit initial states without segments',
+      message:
+        "each segment's start is fitted from its own surveys; fit initial states without segments",
     });
   }
   if (req.parameters.length + (req.initialStates?.length ?? 0) === 0) {
@@ -140,6 +144,7 @@ function boxIssues(
 function seriesIssues(
   model: ChainModel,
   obs: z.infer<typeof observationSeriesSchema>,
+  segmentLength: number | undefined,
 ): ValidationIssue[] {
   const out: ValidationIssue[] = [];
   const n = obs.times.length;
@@ -151,6 +156,28 @@ function seriesIssues(
     if (!(obs.times[i]! > obs.times[i - 1]!)) {
       out.push({ pointer: `/observations/times/${i}`, message: 'times must strictly increase' });
       break;
+    }
+  }
+  if (segmentLength !== undefined && n >= 2) {
+    const silent = model.levels
+      .map((l) => l.id)
+      .filter((id) => !(obs.levels[id] ?? []).some((v) => v !== null && v > 0));
+    if (silent.length) {
+      out.push({
+        pointer: '/segmentLength',
+        message:
+          `each segment fits every level's start from its surveys, and ${silent.join(', ')} ` +
+          'has none; fit the whole span instead',
+      });
+    }
+    const pieces = (obs.times[n - 1]! - obs.times[0]!) / segmentLength;
+    if (pieces > CALIBRATION_LIMITS.maxSegments) {
+      out.push({
+        pointer: '/segmentLength',
+        message:
+          `at most ${CALIBRATION_LIMITS.maxSegments} segments: at least ` +
+          `${(obs.times[n - 1]! - obs.times[0]!) / CALIBRATION_LIMITS.maxSegments} time units`,
+      });
     }
   }
   if (n && obs.times[n - 1]! > CALIBRATION_LIMITS.maxSpan) {
@@ -187,7 +214,7 @@ export function validateCalibrationRequest(body: unknown): ValidationResult<Cali
   const model = modelCheck.data;
   const errors = [
     ...initialStateIssues(model, shape.data.initial),
-    ...seriesIssues(model, shape.data.observations),
+    ...seriesIssues(model, shape.data.observations, shape.data.segmentLength),
     ...boxIssues(model, shape.data),
   ];
   if (errors.length) return { ok: false, errors };
@@ -207,9 +234,17 @@ export function validateCalibrationRequest(body: unknown): ValidationResult<Cali
   };
 }
 
-/** Weighted model time a calibration integrates at most (for pricing): starts × iterations. */
+/**
+ * Weighted model time a calibration integrates at most (for pricing). Every iteration of every
+ * start integrates the span once per fitted value plus once. A segmented fit runs two passes,
+ * each a joint descent (one more span per level: a start's column integrates its own segment
+ * only) and a descent of the starts alone from two first guesses (1 + levels spans each).
+ */
 export function calibrationWork(req: CalibrationRequest): number {
   const span = req.observations.times.at(-1) ?? 0;
   const fitted = req.parameters.length + req.initialStates.length;
-  return req.starts * req.maxIterations * (fitted + 1) * span;
+  if (req.segmentLength === undefined) return req.starts * req.maxIterations * (fitted + 1) * span;
+  const levels = req.model.levels.length;
+  const perIteration = fitted + levels + 1 + 2 * (levels + 1);
+  return 2 * req.starts * req.maxIterations * perIteration * span;
 }
