@@ -63,9 +63,12 @@ export function keyedApi(
   // bench's repeats hit it; engine answers are deterministic so a hit is exact.
   const cache = new ResultCache({ maxBytes: 64 * 2 ** 20, ttlMs: 10 * 60_000, now });
   const projectionPool = new ProjectionPool(workerThreads());
+  const perTenantActive = 4;
   const jobs = new JobsService(db, quotas, now, {
-    concurrency: workerThreads(),
-    perTenantActive: 4,
+    // Beyond one tenant's bound, so another tenant's job starts beside a flood at once; the
+    // analysis pool interleaves running jobs' chunks tenant by tenant.
+    concurrency: 2 * perTenantActive,
+    perTenantActive,
     maxQueued: 100,
   });
   // The analysis pool's threads start on first use: most test apps never need them.

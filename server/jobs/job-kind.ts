@@ -1,7 +1,11 @@
 import type { ValidationResult } from '@tropline/core';
 
-/** What a running job may use: a cancellation signal and a progress callback (0..1). */
+/**
+ * What a running job may use: whose it is (the tenant; the worker pool gives tenants turns), a
+ * cancellation signal and a progress callback (0..1).
+ */
 export interface JobContext {
+  readonly owner: string;
   readonly signal: AbortSignal;
   onProgress(fraction: number): void;
 }

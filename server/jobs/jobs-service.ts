@@ -14,7 +14,11 @@ import { isUniqueViolation, JobsRepository, type JobRecord } from './jobs-reposi
 
 /** Bounds on the job machinery. */
 export interface JobsOptions {
-  /** Jobs run at once by this process (the worker pool's size). */
+  /**
+   * Jobs this process runs at once. The worker pool interleaves running jobs' chunks tenant by
+   * tenant, so this bounds memory (partial results held), not CPU: above one tenant's
+   * `perTenantActive`, another tenant's job starts at once instead of waiting behind a flood.
+   */
   readonly concurrency: number;
   /** Jobs a tenant may have queued or running at once. */
   readonly perTenantActive: number;
@@ -49,6 +53,9 @@ export class JobsService {
   private readonly queue: Queued[] = [];
   private readonly running = new Map<string, AbortController>();
   private readonly kinds = new Map<string, JobKind>();
+  /** When each tenant last had a job started (a counter), for taking turns from the queue. */
+  private readonly lastTurn = new Map<string, number>();
+  private turns = 0;
   private timer: NodeJS.Timeout | undefined;
   private closed = false;
 
@@ -255,9 +262,26 @@ export class JobsService {
 
   private pump(): void {
     while (!this.closed && this.running.size < this.options.concurrency && this.queue.length) {
-      const next = this.queue.shift()!;
-      void this.execute(next);
+      void this.execute(this.queue.splice(this.nextTurn(), 1)[0]!);
     }
+  }
+
+  /**
+   * Index of the queued job to start next: the oldest job of the tenant whose last start is
+   * longest ago (a tenant not seen yet first), so tenants take turns however many one queued.
+   */
+  private nextTurn(): number {
+    let best = 0;
+    let bestTurn = Infinity;
+    this.queue.forEach((q, i) => {
+      const turn = this.lastTurn.get(q.record.tenantId) ?? -1;
+      if (turn < bestTurn) [best, bestTurn] = [i, turn];
+    });
+    const tenant = this.queue[best]!.record.tenantId;
+    this.lastTurn.delete(tenant); // re-inserted last: the map stays small and in turn order
+    this.lastTurn.set(tenant, this.turns++);
+    if (this.lastTurn.size > 1000) this.lastTurn.delete(this.lastTurn.keys().next().value!);
+    return best;
   }
 
   private async execute(item: Queued): Promise<void> {
@@ -269,6 +293,7 @@ export class JobsService {
       if (!(await this.repo.start(id, this.iso()))) return; // cancelled while queued
       await this.emit(item.record);
       const result = await item.kind.run(item.request, {
+        owner: item.record.tenantId,
         signal: controller.signal,
         onProgress: (fraction) => {
           const t = this.now();

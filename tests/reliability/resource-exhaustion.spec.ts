@@ -52,6 +52,51 @@ describe('resource exhaustion: one tenant flooding heavy jobs', () => {
     expect(usage.json!.used).toBe(admittedUnits);
   });
 
+  // Fairness between tenants' jobs (server/jobs/jobs-service.ts, shared/pool/fair-scheduler.ts):
+  // the flood fills its bound with four sweeps at the work bound, each cut into about 240
+  // chunks; another tenant's one-chunk sweep starts beside them and, owners taking turns chunk
+  // by chunk, is done after at most a couple of the flood's chunks, while the flood still holds
+  // all four jobs (it has hundreds of chunks to go). What is checked is the order the scheduler
+  // fixes, not a speed.
+  it('runs another tenant’s job beside the flood, in turn, so it is done while the flood still runs', async () => {
+    const { db } = running.app.locals.tropline;
+    const tenant = await new TenantsService(db).create('saltcote', 'Saltcote Reservoir Board');
+    await new QuotasService(db).setPlan(tenant.id, { monthlyUnits: 1e8, perMinute: 1e6 }, 't');
+    const flooder = await new KeysService(db).issue({ tenantId: tenant.id, kind: 'server' }, 't');
+    const atBound = (n: number) => ({ ...heavySweep(n, 1000), transient: 30_000, window: 30_000 });
+    const flood = await Promise.all(
+      [1, 2, 3, 4].map((i) =>
+        send(base, 'POST', '/sweeps', { key: flooder.token, body: atBound(5000 + i) }),
+      ),
+    );
+    expect(flood.map((a) => a.status)).toEqual([202, 202, 202, 202]);
+    const small = await send(base, 'POST', '/sweeps', {
+      key: keys.victimKey,
+      body: heavySweep(7000, 2),
+    });
+    expect(small.status).toBe(202);
+    let state = small.json!;
+    while (state.status === 'queued' || state.status === 'running') {
+      await new Promise((r) => setTimeout(r, 50));
+      state = (await send(base, 'GET', `/jobs/${String(small.json!.id)}`, { key: keys.victimKey }))
+        .json!;
+    }
+    expect(state.status).toBe('succeeded');
+    const floodNow = await Promise.all(
+      flood.map((a) => send(base, 'GET', `/jobs/${String(a.json!.id)}`, { key: flooder.token })),
+    );
+    expect(floodNow.map((a) => a.json!.status)).toEqual([
+      'running',
+      'running',
+      'running',
+      'running',
+    ]);
+    // Cancelled, they end at once (the pool drops their waiting chunks).
+    for (const a of flood) {
+      await send(base, 'DELETE', `/jobs/${String(a.json!.id)}`, { key: flooder.token });
+    }
+  });
+
   it('bounds the flooding tenant’s queue and answers every one of the victim’s projections', async () => {
     const { db } = running.app.locals.tropline;
     const report = await runFlood(base, keys, {
