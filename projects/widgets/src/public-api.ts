@@ -67,7 +67,21 @@ export {
   type ParameterField,
   type ParameterGroup,
 } from './lib/parameter-form/parameter-form-schema';
-export { PhasePortrait } from './lib/phase-portrait/phase-portrait';
+export { PhasePortrait, type PhasePortraitView } from './lib/phase-portrait/phase-portrait';
+export {
+  phasePortrait3dOptions,
+  describePhasePortrait3d,
+  viewBasis,
+  projectPoint,
+  turnView,
+  DEFAULT_VIEW_ANGLES,
+  VIEW_STEP,
+  type PhasePortrait3dSettings,
+  type Vec3,
+  type ViewAngles,
+  type ViewBasis,
+  type ViewKey,
+} from './lib/phase-portrait/phase-portrait-3d-options';
 export {
   phasePortraitOptions,
   phasePortraitTable,

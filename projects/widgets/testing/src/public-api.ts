@@ -12,6 +12,7 @@ export {
 } from './fake-tropline-client';
 export { ENGINE_ANALYSES } from './engine-analyses';
 export { benchmarkSweep } from './benchmark-sweep';
+export { engineTrajectory } from './engine-trajectory';
 export { TroplineChartHarness } from './chart-figure-harness';
 export { TrajectoryChartHarness } from './trajectory-chart-harness';
 export {

@@ -1,21 +1,59 @@
-import { ComponentHarness } from '@angular/cdk/testing';
+import { ComponentHarness, TestKey } from '@angular/cdk/testing';
 import { TroplineChartHarness } from './chart-figure-harness';
 
 /** Test harness for `<tropline-phase-portrait>`. */
 export class PhasePortraitHarness extends TroplineChartHarness {
   /** The selector this harness matches. */
   static hostSelector = 'tropline-phase-portrait';
-  private readonly selects = this.locatorForAll('select');
-  private readonly xOptions = this.locatorForAll('select:first-of-type option');
-  private readonly yOptions = this.locatorForAll('select:last-of-type option');
+  private readonly selects = this.locatorForAll('.tropline-phase-portrait__axes select');
+  private readonly viewToggles = this.locatorForAll('mat-button-toggle button');
+  private readonly canvas = this.locatorFor('.tropline-phase-portrait__canvas');
+  private readonly sliders = this.locatorForAll('input[matSliderThumb]');
 
-  /** Chooses the levels on the two axes by id. */
-  async pickLevels(x: string, y: string): Promise<void> {
-    const [sx, sy] = await this.selects();
-    const values = async (options: Awaited<ReturnType<typeof this.xOptions>>) =>
-      Promise.all(options.map((o) => o.getProperty<string>('value')));
-    await sx!.selectOptions((await values(await this.xOptions())).indexOf(x));
-    await sy!.selectOptions((await values(await this.yOptions())).indexOf(y));
+  /** Chooses the levels on the axes by id: across, up, and in the three-level view depth. */
+  async pickLevels(x: string, y: string, depth?: string): Promise<void> {
+    const selects = await this.selects();
+    const wanted = [x, y, ...(depth === undefined ? [] : [depth])];
+    for (const [i, id] of wanted.entries()) {
+      const select = selects[i];
+      if (!select) throw new Error('the three-level view is not shown: no depth select');
+      const options = await this.locatorForAll(
+        `.tropline-phase-portrait__axes select:nth-of-type(${i + 1}) option`,
+      )();
+      const values = await Promise.all(options.map((o) => o.getProperty<string>('value')));
+      await select.selectOptions(values.indexOf(id));
+    }
+  }
+
+  /** Switches between two levels in the plane (`plane`) and three in a box (`box`). */
+  async showView(view: 'plane' | 'box'): Promise<void> {
+    const toggles = await this.viewToggles();
+    if (!toggles.length) throw new Error('the chain has fewer than three levels: no box view');
+    await toggles[view === 'plane' ? 0 : 1]!.click();
+  }
+
+  /** Presses a key on the focused chart (the arrows turn and tilt the box, Home resets it). */
+  async pressOnChart(key: 'ArrowLeft' | 'ArrowRight' | 'ArrowUp' | 'ArrowDown' | 'Home') {
+    const keys = {
+      ArrowLeft: TestKey.LEFT_ARROW,
+      ArrowRight: TestKey.RIGHT_ARROW,
+      ArrowUp: TestKey.UP_ARROW,
+      ArrowDown: TestKey.DOWN_ARROW,
+      Home: TestKey.HOME,
+    } as const;
+    const canvas = await this.canvas();
+    await canvas.focus();
+    await canvas.sendKeys(keys[key]);
+  }
+
+  /** The turn and tilt of the box in degrees, as its sliders show them. */
+  async getViewAngles(): Promise<{ azimuth: number; elevation: number } | null> {
+    const [turn, tilt] = await this.sliders();
+    if (!turn || !tilt) return null;
+    return {
+      azimuth: Number(await turn.getProperty<string>('value')),
+      elevation: Number(await tilt.getProperty<string>('value')),
+    };
   }
 }
 

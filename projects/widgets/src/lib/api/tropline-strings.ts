@@ -116,6 +116,24 @@ export interface TroplineStrings {
   readonly nullcline: (level: string) => string;
   /** Legend name of the equilibria with their stability. */
   readonly equilibriumLegend: (stable: boolean) => string;
+  /** Accessible name of the phase portrait's choice of view. */
+  readonly phaseViewLabel: string;
+  /** The phase portrait's view of two levels in the plane. */
+  readonly planeView: string;
+  /** The phase portrait's view of three levels in a box. */
+  readonly boxView: string;
+  /** Label of the level on the horizontal axis. */
+  readonly acrossAxis: string;
+  /** Label of the level on the vertical axis. */
+  readonly upAxis: string;
+  /** Label of the level on the box's depth axis. */
+  readonly depthAxis: string;
+  /** Label of the slider that turns the box about its vertical axis. */
+  readonly turnLabel: string;
+  /** Label of the slider that tilts the box. */
+  readonly tiltLabel: string;
+  /** Hint read with the focused three-level view. */
+  readonly rotateKeys: string;
 }
 
 /** Tropline's English wording. */
@@ -209,6 +227,16 @@ export const DEFAULT_TROPLINE_STRINGS: TroplineStrings = {
   longRun: 'Long run',
   nullcline: (level) => `${level} unchanging (nullcline)`,
   equilibriumLegend: (stable) => (stable ? 'Equilibrium, stable (●)' : 'Equilibrium, unstable (○)'),
+  phaseViewLabel: 'Levels shown',
+  planeView: 'Two levels',
+  boxView: 'Three levels',
+  acrossAxis: 'Across',
+  upAxis: 'Up',
+  depthAxis: 'Depth',
+  turnLabel: 'Turn',
+  tiltLabel: 'Tilt',
+  rotateKeys:
+    'Keys: left and right arrows turn the box, up and down arrows tilt it, Home restores the view.',
 };
 
 /** The strings in use; `provideTropline({ strings })` overrides any of them. */

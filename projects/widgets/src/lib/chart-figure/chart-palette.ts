@@ -101,3 +101,17 @@ export function prefersReducedMotion(host: HTMLElement): boolean {
   return !!host.ownerDocument.defaultView?.matchMedia?.('(prefers-reduced-motion: reduce)')
     ?.matches;
 }
+
+/**
+ * Whether the reader asks for less motion, following the system setting when it changes, for
+ * the injecting component's document. Call in an injection context.
+ */
+export function injectReducedMotion(): Signal<boolean> {
+  const host = inject<ElementRef<HTMLElement>>(ElementRef).nativeElement;
+  const media = host.ownerDocument.defaultView?.matchMedia?.('(prefers-reduced-motion: reduce)');
+  const reduced = signal(!!media?.matches);
+  const update = () => reduced.set(!!media?.matches);
+  media?.addEventListener?.('change', update);
+  inject(DestroyRef).onDestroy(() => media?.removeEventListener?.('change', update));
+  return reduced.asReadonly();
+}

@@ -1,5 +1,5 @@
-import { findEquilibria, project, ROSENZWEIG_MACARTHUR } from '@tropline/core';
-import type { TrajectoryData } from '../trajectory-chart/trajectory-chart-options';
+import { findEquilibria, ROSENZWEIG_MACARTHUR } from '@tropline/core';
+import { engineTrajectory } from '@tropline/widgets/testing';
 import {
   describePhasePortrait,
   phasePortraitOptions,
@@ -8,17 +8,7 @@ import {
 } from './phase-portrait-options';
 
 const { model, initial } = ROSENZWEIG_MACARTHUR;
-const run = project({ model, initial, horizon: 50, samples: 101 });
-const data: TrajectoryData = {
-  times: run.times,
-  timeUnit: model.timeUnit,
-  series: model.levels.map((l) => ({
-    id: l.id,
-    name: l.name,
-    unit: l.unit,
-    values: run.series[l.id]!,
-  })),
-};
+const data = engineTrajectory(model, initial, 50, 101);
 const [x, y] = model.levels.map((l) => l.id) as [string, string];
 const equilibria = findEquilibria(model);
 

@@ -7,7 +7,10 @@ import type {
 import type { EChartsCoreOption } from 'echarts/core';
 import { DEFAULT_TROPLINE_STRINGS, type TroplineStrings } from '../api/tropline-strings';
 import type { ChartTable } from '../chart-figure/chart-export';
-import type { TrajectoryData } from '../trajectory-chart/trajectory-chart-options';
+import type {
+  TrajectoryData,
+  TrajectorySeries,
+} from '../trajectory-chart/trajectory-chart-options';
 import { formatUnit } from '../trajectory-chart/trajectory-chart-format';
 
 /** Nullclines of a two-level chain: where each level's rate of change is zero. */
@@ -65,10 +68,49 @@ export interface PhasePortraitSettings {
   readonly strings?: TroplineStrings;
 }
 
-function level(data: TrajectoryData, id: string) {
+/** The series of one level, by id; a RangeError when the trajectory lacks it. */
+export function levelSeries(data: TrajectoryData, id: string) {
   const s = data.series.find((l) => l.id === id);
   if (!s) throw new RangeError(`no level "${id}" in the trajectory`);
   return s;
+}
+
+/**
+ * Index of the first sample at or after the end of the transient (at least 1, so both parts
+ * have a point); the faded and the solid part share the sample there.
+ */
+export function transientCut(times: readonly number[], transientEnd: number): number {
+  return Math.max(
+    1,
+    times.findIndex((t) => t >= transientEnd),
+  );
+}
+
+/**
+ * The scatter series marking the feasible equilibria of one stability: filled in the text
+ * colour when stable, hollow on the surface colour when not (shape, not colour, carries it).
+ * `at` places an equilibrium's state on the chart.
+ */
+export function equilibriumMarks(
+  equilibria: readonly Equilibrium[],
+  stable: boolean,
+  style: { readonly text: string; readonly surface: string; readonly strings: TroplineStrings },
+  at: (state: Readonly<Record<string, number>>) => readonly number[],
+) {
+  const { text, surface, strings } = style;
+  return {
+    name: strings.equilibriumLegend(stable),
+    type: 'scatter',
+    symbol: 'circle',
+    symbolSize: 12,
+    z: 5,
+    itemStyle: stable
+      ? { color: text, borderColor: text }
+      : { color: surface, borderColor: text, borderWidth: 2 },
+    data: equilibria
+      .filter((e) => e.feasible && e.stable === stable)
+      .map((e) => ({ value: at(e.state), name: e.classification })),
+  };
 }
 
 /** A paragraph describing the portrait. */
@@ -77,8 +119,8 @@ export function describePhasePortrait(
   settings: Pick<PhasePortraitSettings, 'x' | 'y' | 'equilibria' | 'locale' | 'transientEnd'>,
 ): string {
   const fmt = new Intl.NumberFormat(settings.locale, { maximumSignificantDigits: 3 });
-  const xs = level(data, settings.x);
-  const ys = level(data, settings.y);
+  const xs = levelSeries(data, settings.x);
+  const ys = levelSeries(data, settings.y);
   const feasible = settings.equilibria.filter((e) => e.feasible);
   const stable = feasible.filter((e) => e.stable).length;
   return (
@@ -88,18 +130,22 @@ export function describePhasePortrait(
   );
 }
 
-/** The portrait's points as a table. */
-export function phasePortraitTable(data: TrajectoryData, x: string, y: string): ChartTable {
-  const xs = level(data, x);
-  const ys = level(data, y);
+/** The portrait's points as a table: time, then the levels on its axes (two, or three). */
+export function phasePortraitTable(
+  data: TrajectoryData,
+  x: string,
+  y: string,
+  depth?: string,
+): ChartTable {
+  const axes = [x, y, ...(depth === undefined ? [] : [depth])].map((id) => levelSeries(data, id));
+  const [xs, ys] = axes as [TrajectorySeries, TrajectorySeries];
   return {
-    caption: `${ys.name} against ${xs.name} over time`,
-    columns: [
-      `time (${data.timeUnit})`,
-      `${xs.name} (${formatUnit(xs.unit)})`,
-      `${ys.name} (${formatUnit(ys.unit)})`,
-    ],
-    rows: data.times.map((t, k) => [t, xs.values[k] ?? null, ys.values[k] ?? null]),
+    caption:
+      depth === undefined
+        ? `${ys.name} against ${xs.name} over time`
+        : `${axes.map((s) => s.name).join(', ')} over time`,
+    columns: [`time (${data.timeUnit})`, ...axes.map((s) => `${s.name} (${formatUnit(s.unit)})`)],
+    rows: data.times.map((t, k) => [t, ...axes.map((s) => s.values[k] ?? null)]),
   };
 }
 
@@ -114,30 +160,19 @@ export function phasePortraitOptions(
 ): EChartsCoreOption {
   const strings = settings.strings ?? DEFAULT_TROPLINE_STRINGS;
   const fmt = new Intl.NumberFormat(settings.locale, { maximumSignificantDigits: 4 });
-  const xs = level(data, settings.x);
-  const ys = level(data, settings.y);
+  const xs = levelSeries(data, settings.x);
+  const ys = levelSeries(data, settings.y);
   const text = settings.textColor;
-  const cut = Math.max(
-    1,
-    data.times.findIndex((t) => t >= settings.transientEnd),
-  );
+  const cut = transientCut(data.times, settings.transientEnd);
   const pairs = data.times.map((_, k) => [xs.values[k]!, ys.values[k]!]);
   const line = settings.colors[0] ?? '#1565c0';
   const nullColor = settings.colors[1] ?? '#b0561d';
   const feasible = settings.equilibria.filter((e) => e.feasible);
-  const marks = (stable: boolean) => ({
-    name: strings.equilibriumLegend(stable),
-    type: 'scatter',
-    symbol: 'circle',
-    symbolSize: 12,
-    z: 5,
-    itemStyle: stable
-      ? { color: text, borderColor: text }
-      : { color: settings.surface, borderColor: text, borderWidth: 2 },
-    data: feasible
-      .filter((e) => e.stable === stable)
-      .map((e) => ({ value: [e.state[settings.x], e.state[settings.y]], name: e.classification })),
-  });
+  const marks = (stable: boolean) =>
+    equilibriumMarks(feasible, stable, { text, surface: settings.surface, strings }, (state) => [
+      state[settings.x]!,
+      state[settings.y]!,
+    ]);
   const nullclines = settings.nullclines;
   const yMax = Math.max(...pairs.map((p) => p[1]!), ...feasible.map((e) => e.state[settings.y]!));
   return {

@@ -1,18 +1,10 @@
-import {
-  ChangeDetectionStrategy,
-  Component,
-  computed,
-  ElementRef,
-  inject,
-  input,
-  signal,
-} from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import type { EChartsType } from 'echarts/core';
 import { NgxEchartsDirective } from 'ngx-echarts';
 import { TROPLINE_OPTIONS } from '../api/tropline-options';
 import { TROPLINE_STRINGS } from '../api/tropline-strings';
 import { ChartFigure } from '../chart-figure/chart-figure';
-import { injectChartPalette, prefersReducedMotion } from '../chart-figure/chart-palette';
+import { injectChartPalette, injectReducedMotion } from '../chart-figure/chart-palette';
 import { zoomWindow, type ZoomKey } from '../chart-figure/zoom-keys';
 import {
   describeTrajectory,
@@ -42,10 +34,10 @@ let nextId = 0;
   },
 })
 export class TrajectoryChart {
-  private readonly host = inject<ElementRef<HTMLElement>>(ElementRef).nativeElement;
   private readonly options = inject(TROPLINE_OPTIONS);
   protected readonly strings = inject(TROPLINE_STRINGS);
   private readonly palette = injectChartPalette();
+  private readonly reducedMotion = injectReducedMotion();
 
   /** The trajectory to draw; while undefined a skeleton holds its place. */
   readonly data = input<TrajectoryData | undefined>(undefined);
@@ -80,7 +72,7 @@ export class TrajectoryChart {
       textColor: palette.text,
       fontFamily: palette.font,
       zoom: this.zoom(),
-      animation: !prefersReducedMotion(this.host),
+      animation: !this.reducedMotion(),
       strings: this.strings,
     });
   });
