@@ -353,18 +353,4 @@ describe('demo portal in Chromium', () => {
     expect(log.outside).toEqual([]);
     await page.screenshot({ path: resolve(ARTIFACTS, 'console.png'), fullPage: true });
   }, 60_000);
-
-  it('serves Storybook with the trajectory chart story drawn', async () => {
-    const storyUrl =
-      served.base +
-      '/storybook/iframe.html?id=widgets-trajectory-chart--invented-lake&viewMode=story';
-    const { page, log } = await openPage(browser, storyUrl);
-    const canvas = page.locator('tropline-trajectory-chart canvas').first();
-    await canvas.waitFor({ state: 'visible', timeout: 30_000 });
-    await expect
-      .poll(() => page.locator('tropline-trajectory-chart figcaption').textContent())
-      .toContain('Water flea (Daphnia pulex) ranges from');
-    expect(log.outside).toEqual([]);
-    await page.screenshot({ path: resolve(ARTIFACTS, 'storybook-trajectory-chart.png') });
-  }, 60_000);
 });

@@ -25,10 +25,28 @@ const meta: Meta<BifurcationChart> = {
   parameters: {
     docs: {
       description: {
-        component:
-          'The long-run maxima of one level against a swept parameter, computed as a background ' +
-          'job with progress and a cancel button. Regimes differ by marker shape as well as ' +
-          'colour; the current value is marked.',
+        component: `
+**What it is for.** How the long-run behaviour changes as one parameter is varied: for each
+value, the peaks one level reaches after the transient. One peak means a steady state or simple
+cycle, a few a more complex cycle, a cloud chaos. The current value is marked, so a reader sees
+how close the system sits to a change of regime.
+
+**Inputs.** \`request\`: a sweep (model, start, parameter pointer, range, steps, observed level,
+transient and window) to run on the API as a background job; or \`result\`: a finished sweep to
+draw. \`axes\` (labels; derived from the model's names and units when absent), \`current\` (the
+parameter's value now) and \`label\` (the accessible name, default *Bifurcation diagram*).
+
+**Outputs.** None. While the job runs a progress bar shows how far it is, with a cancel button;
+a refusal (quota, bounds) shows its heading, what to do and when the allowance resets.
+
+**Accessibility.** The chart is an image (\`role="img"\`) described by its caption; regimes differ
+by marker shape as well as colour. Progress is announced through the progress bar, refusals as
+an alert. The table view gives each value's regime and peaks as text.
+
+**Cautions.** The diagram is the model's, computed over long runs: where it shows chaos, no
+projection is meaningful past its predictability horizon, and decisions on harvest or culling
+rest with qualified biologists under local law. Show the cautions beside it.
+`,
       },
     },
   },

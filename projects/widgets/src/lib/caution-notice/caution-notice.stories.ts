@@ -8,9 +8,24 @@ const meta: Meta<CautionNotice> = {
   parameters: {
     docs: {
       description: {
-        component:
-          'The cautions every projection carries. On by default wherever projections show; a ' +
-          'host may restyle them through `--tropline-caution-*`, not remove them.',
+        component: `
+**What it is for.** The cautions every projection carries, as a short list that is always
+visible: projections are for comparing scenarios, not forecasts; where the system is chaotic
+nothing is meaningful past the predictability horizon; harvest, stocking and culling decisions
+rest with qualified biologists and local law.
+
+**Inputs.** \`cautions\`: the sentences to list; by default the engine's three, and the API sends
+the same with every projection.
+
+**Outputs.** None.
+
+**Accessibility.** A complementary landmark (\`aside\`) named *How to read this projection*, a
+plain list, its icon hidden from screen readers.
+
+**Cautions.** This is the caution. Every widget that shows a projection shows it by default; a
+host may restyle it through \`--tropline-caution-surface\` and \`--tropline-caution-on-surface\`,
+not remove it.
+`,
       },
     },
   },

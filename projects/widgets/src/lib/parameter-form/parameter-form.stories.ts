@@ -9,10 +9,30 @@ const meta: Meta<ParameterForm> = {
   parameters: {
     docs: {
       description: {
-        component:
-          'Every parameter grouped by level, a slider paired with a numeric field and its unit. ' +
-          'A published scenario passes `bounds`: only those parameters open, within their range; ' +
-          'the rest are shown fixed. Valid edits come out of `modelChange`.',
+        component: `
+**What it is for.** The model's parameters as a form, so a reader can ask "what if?": grouped
+by level, each a numeric field with its unit and a slider beside it. On a public page it opens
+only the parameters a published scenario allows, within the publisher's ranges; the others are
+shown with their values, marked *Fixed by the publisher*.
+
+**Inputs.** \`model\` (required): the published model, whose values are the reset values — pass
+the published model, not the edited one, so the form is not rebuilt while someone drags.
+\`bounds\`: the public parameters and their ranges (\`pointer\`, \`min\`, \`max\`, optional \`step\` and
+\`label\`); absent, every parameter opens from 0 to twice its value. \`heading\`: the form's heading
+(default *Model parameters*).
+
+**Outputs.** \`modelChange\`: every valid edit, as the whole model with the new values — a value
+outside its range is refused on the spot with a message and never emitted. \`resetToPublished\`:
+the reader pressed *Reset to the published values*.
+
+**Accessibility.** A \`form\` named by its heading; one \`fieldset\` and \`legend\` per level. Each
+field has a visible label, its range as a hint and its error as text (\`aria-invalid\` set); the
+slider carries the same label and reads its value with the unit. Everything works from the
+keyboard (Tab, arrow keys on the slider, typing in the field).
+
+**Cautions.** The form changes a scenario, it forecasts nothing: show it with the projection it
+drives and that projection's cautions — the projection panel does.
+`,
       },
     },
   },

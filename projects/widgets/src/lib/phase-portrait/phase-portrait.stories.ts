@@ -30,10 +30,27 @@ const meta: Meta<PhasePortrait> = {
   parameters: {
     docs: {
       description: {
-        component:
-          'Two levels against each other: the early transient faded, equilibria filled when ' +
-          'stable and hollow when not, and for a two-level chain the nullclines where each ' +
-          'level stops changing. Pick the levels with the selects above the chart.',
+        component: `
+**What it is for.** Any two levels against each other, which shows the shape of the long-run
+behaviour at a glance — a point it settles to, a closed loop it cycles on, or a tangle that
+never repeats. The early transient is faded; equilibria are marked filled when stable and hollow
+when not; for a two-level chain the nullclines show where each level stops changing.
+
+**Inputs.** \`model\` (required; names, units, nullclines), \`data\` (the trajectory; a skeleton
+while undefined), \`equilibria\` to mark, \`x\` and \`y\` (level ids; default the producer and the
+level above it), \`transientEnd\` (model time; default a quarter of the span) and \`label\` (the
+accessible name, default *Phase portrait*).
+
+**Outputs.** None. The reader picks the two levels with ordinary selects above the chart.
+
+**Accessibility.** Labelled native selects; the chart is an image (\`role="img"\`) described by a
+caption naming the two levels, the faded transient and how many equilibria are stable. Stable
+and unstable equilibria differ by fill (● and ○), not colour alone. The table view lists the
+plotted points.
+
+**Cautions.** The portrait shows the model's behaviour, not the system's future; show the
+projection cautions wherever it appears (the projection panel does).
+`,
       },
     },
   },

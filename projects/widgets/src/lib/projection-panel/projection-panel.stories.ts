@@ -15,11 +15,30 @@ const meta: Meta<ProjectionPanel> = {
   parameters: {
     docs: {
       description: {
-        component:
-          'The one-tag composite: parameter form, trajectory chart, phase portrait, regime ' +
-          'summary and cautions. Here the fake client from `@tropline/widgets/testing` computes ' +
-          'in the page. In a host app, `provideTropline({ apiUrl, apiKey })` points it at the ' +
-          'API with a browser key.',
+        component: `
+**What it is for.** The composite a portal embeds with one tag: the parameter form (limited to
+what the publisher allowed), the trajectory chart, the phase portrait and the regime summary,
+with the cautions once for all. Edits are debounced; a newer edit cancels requests in flight,
+and the last drawn result stays on screen while the next one loads.
+
+**Inputs.** \`model\` and \`initial\` (required; the published model and each level's start by
+id), \`horizon\` and \`samples\`, \`logScale\`, \`bounds\` (the public ranges), and \`showForm\`,
+\`showPhasePortrait\`, \`showSummary\` to leave parts out. Here the fake client from
+\`@tropline/widgets/testing\` computes in the page; in a host app \`provideTropline({ apiUrl,
+apiKey })\` points it at the API with a browser key.
+
+**Outputs.** None of its own: what the reader changes stays in the panel. Hosts that need the
+answers use the custom element's \`tropline-result\` and \`tropline-refused\` events.
+
+**Accessibility.** Marked busy while computing, with a labelled progress bar; a refused request
+shows as an alert naming the field and the reason; every part keeps its own labels, captions
+and keyboard use (see each widget's page). At 320 px everything stacks.
+
+**Cautions.** Always shown under the results: projections are for comparing scenarios, not
+forecasts; chaos caps predictability (the chart shades the span past the horizon); harvest,
+stocking and culling decisions rest with qualified biologists under local law. The API's own
+cautions replace the defaults when it sends them.
+`,
       },
     },
   },

@@ -10,10 +10,26 @@ const meta: Meta<RegimeSummary> = {
   parameters: {
     docs: {
       description: {
-        component:
-          'The long-run behaviour in plain words: regime, largest Lyapunov exponent with its ' +
-          'error, the predictability horizon in the model’s time unit, the equilibria with their ' +
-          'stability, and the cautions.',
+        component: `
+**What it is for.** The long-run behaviour in plain words, for readers who do not read phase
+portraits: the regime (settles, cycles, chaotic or a level dies out), the largest Lyapunov
+exponent with its standard error, the predictability horizon in the model's time unit, the
+equilibria with their stability — and the cautions.
+
+**Inputs.** \`model\` (required; names, units and time unit), \`regime\` (the API's assessment;
+undefined while it is computed), \`equilibria\`, \`error\` (why the assessment is not available),
+\`showCautions\` (default on; a composite that shows them once turns this off) and \`cautions\`.
+
+**Outputs.** None.
+
+**Accessibility.** A region named by its heading *Long-run behaviour*; facts as a description
+list; while computing, a status message says so; a failure is said in words. Numbers follow the
+reader's locale.
+
+**Cautions.** Shown here by default: projections are for comparing scenarios, not forecasts;
+chaos caps how far ahead any projection means anything; harvest, stocking and culling decisions
+rest with qualified biologists under local law.
+`,
       },
     },
   },

@@ -35,10 +35,28 @@ const meta: Meta<ScenarioComparison> = {
   parameters: {
     docs: {
       description: {
-        component:
-          'A baseline and its alternatives side by side, as small multiples or one level ' +
-          'overlaid, and a table of the metrics with each difference from the baseline written ' +
-          'out; differences of 10 % or more are bold, shaded and carry an arrow.',
+        component: `
+**What it is for.** A baseline and its management alternatives side by side — a cull, a closed
+season, a stocking — as one chart per scenario or one level of all on one chart, and a table of
+the comparison metrics (value at the horizon, mean over the final window, lowest value, first
+time below the threshold) with each difference from the baseline written out.
+
+**Inputs.** \`model\` (required; the baseline's names and units), \`request\` (the comparison to run
+on the API as a background job) or \`result\` (a finished comparison to show), and \`layout\`
+(\`multiples\` or \`overlay\`).
+
+**Outputs.** None. While the job runs a progress bar and a cancel button show; a refusal (quota,
+bounds) shows its heading, what to do and when the allowance resets.
+
+**Accessibility.** A labelled toggle for the layout and a labelled select for the overlaid
+level; the chart is an image (\`role="img"\`) described by its caption; the metrics are a real
+table with a caption, in a focusable region. Differences of 10 % or more are bold and carry an
+arrow as well as a shade — never colour alone.
+
+**Cautions.** A comparison ranks scenarios of the model; it forecasts none of them, and harvest,
+stocking and culling decisions rest with qualified biologists under local law. The cautions
+show under the comparison.
+`,
       },
     },
   },

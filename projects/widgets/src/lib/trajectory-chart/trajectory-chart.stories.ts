@@ -31,11 +31,29 @@ const meta: Meta<TrajectoryChart> = {
   parameters: {
     docs: {
       description: {
-        component:
-          'Every level of a food chain over time, with names and units. Levels in different units ' +
-          'get their own axes; a log scale helps when levels differ by orders of magnitude; the ' +
-          'span past the predictability horizon is shaded. A sentence under the chart describes ' +
-          'it for screen readers.',
+        component: `
+**What it is for.** Every level of a food chain over time, with names and units: the chart a
+projection is read from. Levels in different units get their own axes; a log scale helps when
+levels differ by orders of magnitude; uncertainty bands and monitoring points are drawn when
+given; in a chaotic regime the span past the predictability horizon is shaded and faded.
+
+**Inputs.** \`data\`: times, one series per level (id, name, unit, values), optional \`bands\` and
+\`observations\`; while undefined a skeleton of the same height holds the place. \`logScale\`,
+\`predictabilityHorizon\` (model time), \`zoom\` (default on), \`label\` (the accessible name, default
+*Trajectory of every level over time*) and \`fileName\` for downloads.
+
+**Outputs.** None: it draws what it is given. Its numbers are one button away as a table, and it
+downloads as PNG, SVG and CSV.
+
+**Accessibility.** The chart is an image (\`role="img"\`) named by \`label\` and described by the
+caption under it, one sentence with each level's range and end value in the reader's locale.
+Focus it to zoom with the keyboard: plus and minus zoom, left and right move, zero shows all.
+Series differ by line style as well as colour; the table view gives every number as text.
+
+**Cautions.** A trajectory is a scenario, not a forecast, and means nothing past the
+predictability horizon of a chaotic regime. Alone on a page, show \`<tropline-caution-notice>\`
+with it; the projection panel does so itself.
+`,
       },
     },
   },
