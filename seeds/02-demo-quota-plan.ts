@@ -14,7 +14,7 @@ export const DEMO_OFFERS = [
   {
     id: 'survey',
     name: 'Survey',
-    description: 'The allowance of a new tenant: regular analyses and one public portal.',
+    description: 'Regular analyses and one public portal with steady traffic.',
     monthlyUnits: 100_000,
     perMinute: 600,
     browserPerMinute: 60,

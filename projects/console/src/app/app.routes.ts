@@ -70,6 +70,12 @@ export const routes: Routes = [
         loadComponent: () => import('./audit/audit-page').then((m) => m.AuditPage),
       },
       {
+        path: 'tenant',
+        title: title('Tenant and plan'),
+        canActivate: [requireAction('tenant:manage')],
+        loadComponent: () => import('./tenant/tenant-page').then((m) => m.TenantPage),
+      },
+      {
         path: 'not-allowed',
         title: title('Not available to your role'),
         loadComponent: () => import('./common/message-page').then((m) => m.NotAllowedPage),

@@ -29,7 +29,9 @@ export const AUDIT_ACTIONS: Readonly<Record<string, string>> = {
   'user.create': 'Created an account',
   'user.password-reset-request': 'Asked for a password link',
   'user.password-reset': 'Changed a password by link',
-  'quota.set': 'Changed the quota plan',
+  'quota.set': 'Set the quota numbers',
+  'quota.plan-change': 'Chose another plan',
+  'tenant.update': 'Changed the tenant',
 };
 
 /** One row of the audit table. */

@@ -20,6 +20,7 @@ export const NAV_ITEMS: readonly NavItem[] = [
   { path: '/usage', label: 'Usage and quota', icon: 'data_usage', needs: 'usage:read' },
   { path: '/members', label: 'Members', icon: 'group', needs: 'members:read' },
   { path: '/audit', label: 'Audit trail', icon: 'history', needs: 'audit:read' },
+  { path: '/tenant', label: 'Tenant and plan', icon: 'domain', needs: 'tenant:manage' },
   { path: '/mailbox', label: 'Development mailbox', icon: 'mail', devOnly: true },
   { path: '/status', label: 'Service status', icon: 'monitor_heart' },
 ];
