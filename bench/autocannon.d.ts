@@ -30,6 +30,8 @@ declare module 'autocannon' {
       errors: number;
       timeouts: number;
       non2xx: number;
+      /** Answers by status code. */
+      statusCodeStats?: Record<string, { count: number }>;
       latency: Histogram;
       requests: Histogram & { total: number };
     }

@@ -86,6 +86,8 @@ export function createApp(config: Config, options: AppOptions = {}): TroplineApp
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
   app.set('query parser', 'simple');
+  // Server-Timing's `total` counts from here: logging, headers, body parsing and routing too.
+  app.use(stampStart);
   app.use(
     pinoHttp({
       level: config.logLevel,

@@ -93,6 +93,7 @@ export function keyedApi(
       await jobs.close();
       await projectionPool.close();
       await analysisPool?.close();
+      await quotas.close();
     },
   };
 }

@@ -3,6 +3,8 @@ import { readdirSync } from 'node:fs';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { resolve } from 'node:path';
 import type { Config } from '../config';
+import type BetterSqlite3 from 'better-sqlite3';
+import { cacheStatements, configureConnection } from './sqlite-connection';
 
 const ROOT = resolve(fileURLToPath(new URL('.', import.meta.url)), '../..');
 
@@ -43,10 +45,9 @@ class FolderSource implements Knex.MigrationSource<string> {
 }
 
 /**
- * Opens the SQLite database through Knex. Every connection runs in WAL mode with
- * `synchronous = FULL`, so a write acknowledged to a client (a key, a ledger row) survives a
- * crash or power loss; `busy_timeout` lets several API processes share one file without
- * SQLITE_BUSY reaching a client.
+ * Opens the SQLite database through Knex: one connection per process, set up by
+ * {@link configureConnection} (WAL, `synchronous = FULL`, `busy_timeout`), with its prepared
+ * statements kept ({@link cacheStatements}).
  */
 export function openDatabase(config: Pick<Config, 'sqliteFile'>): Knex {
   return knex({
@@ -56,12 +57,10 @@ export function openDatabase(config: Pick<Config, 'sqliteFile'>): Knex {
     pool: {
       min: 1,
       max: 1,
-      afterCreate(conn: { pragma(sql: string): unknown }, done: (err: Error | null) => void) {
+      afterCreate(conn: BetterSqlite3.Database, done: (err: Error | null) => void) {
         try {
-          if (config.sqliteFile !== ':memory:') conn.pragma('journal_mode = WAL');
-          conn.pragma('synchronous = FULL');
-          conn.pragma('foreign_keys = ON');
-          conn.pragma('busy_timeout = 10000');
+          configureConnection(conn, config.sqliteFile);
+          cacheStatements(conn);
           done(null);
         } catch (err) {
           done(err as Error);
@@ -71,6 +70,11 @@ export function openDatabase(config: Pick<Config, 'sqliteFile'>): Knex {
     migrations: { migrationSource: new FolderSource(MIGRATIONS_DIR), tableName: 'knex_migrations' },
     seeds: { seedSource: new FolderSource(SEEDS_DIR) },
   });
+}
+
+/** The file a database opened by {@link openDatabase} lives in (`:memory:` for none). */
+export function databaseFile(db: Knex): string {
+  return (db.client.config.connection as { filename: string }).filename;
 }
 
 /** Result of {@link prepareDatabase}: what happened at start-up. */

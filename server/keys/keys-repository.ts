@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import { compileQuery, PreparedRead } from '../db/compiled-query';
 import type { KeyKind } from './key-token';
 
 /** An API key row as the service sees it (never the plaintext). */
@@ -40,6 +41,13 @@ interface KeyRow {
   rotated_to: string | null;
 }
 
+interface KeyWithPlanRow extends KeyRow {
+  tenant_slug: string;
+  monthly_units: number | null;
+  plan_per_minute: number | null;
+  browser_per_minute: number | null;
+}
+
 function toRecord(row: KeyRow): KeyRecord {
   return {
     id: row.id,
@@ -59,7 +67,26 @@ function toRecord(row: KeyRow): KeyRecord {
 
 /** Storage of API keys; plain objects in, plain objects out. */
 export class KeysRepository {
-  constructor(private readonly db: Knex) {}
+  private readonly withPlan: PreparedRead<'id', KeyWithPlanRow>;
+
+  constructor(private readonly db: Knex) {
+    this.withPlan = new PreparedRead(
+      db,
+      compileQuery(db, ['id'], (q, p) =>
+        q('api_keys as k')
+          .join('tenants as t', 't.id', 'k.tenant_id')
+          .leftJoin('quota_plans as p', 'p.tenant_id', 'k.tenant_id')
+          .where('k.id', p.id)
+          .first(
+            'k.*',
+            't.slug as tenant_slug',
+            'p.monthly_units',
+            'p.per_minute as plan_per_minute',
+            'p.browser_per_minute',
+          ),
+      ),
+    );
+  }
 
   /** Stores a new key and its origins in one transaction. */
   async insert(key: Omit<KeyRecord, 'revokedAt' | 'rotatedTo'>, trx?: Knex.Transaction) {
@@ -86,22 +113,16 @@ export class KeysRepository {
     else await this.db.transaction(run);
   }
 
-  /** One key with its tenant and plan, or undefined. */
+  /**
+   * One key with its tenant and plan, or undefined. Every keyed request asks this (nothing is
+   * cached, so a revocation holds from the very next request), so the query is compiled once
+   * and runs as a prepared statement.
+   */
   async findWithPlan(id: string): Promise<KeyWithPlan | undefined> {
-    const row = await this.db('api_keys as k')
-      .join('tenants as t', 't.id', 'k.tenant_id')
-      .leftJoin('quota_plans as p', 'p.tenant_id', 'k.tenant_id')
-      .where('k.id', id)
-      .first(
-        'k.*',
-        't.slug as tenant_slug',
-        'p.monthly_units',
-        'p.per_minute as plan_per_minute',
-        'p.browser_per_minute',
-      );
+    const row = await this.withPlan.first({ id });
     if (!row) return undefined;
     return {
-      ...toRecord(row as KeyRow),
+      ...toRecord(row),
       tenantSlug: row.tenant_slug,
       monthlyUnits: row.monthly_units ?? null,
       planPerMinute: row.plan_per_minute ?? null,

@@ -8,12 +8,13 @@ export interface ResultCacheOptions {
 }
 
 interface Entry {
-  readonly body: string;
+  readonly body: Buffer;
   readonly expires: number;
 }
 
 /**
- * Answers of synchronous computations, serialised, by request hash (which includes the
+ * Answers of synchronous computations as the bytes sent (serialised and encoded once), by
+ * request hash (which includes the
  * tenant, so one tenant never sees another's entry). Least recently used entries go first once
  * the byte budget is reached. The engine is deterministic, so a hit is exactly the answer a
  * recomputation would give.
@@ -24,8 +25,8 @@ export class ResultCache {
 
   constructor(private readonly options: ResultCacheOptions) {}
 
-  /** The cached serialised answer, or undefined. */
-  get(hash: string): string | undefined {
+  /** The cached answer's bytes, or undefined. */
+  get(hash: string): Buffer | undefined {
     const entry = this.entries.get(hash);
     if (!entry) return undefined;
     if (entry.expires <= this.options.now()) {
@@ -39,8 +40,8 @@ export class ResultCache {
   }
 
   /** Keeps an answer; one larger than a quarter of the budget is not worth evicting for. */
-  set(hash: string, body: string): void {
-    const size = body.length * 2;
+  set(hash: string, body: Buffer): void {
+    const size = body.length;
     if (size > this.options.maxBytes / 4) return;
     const old = this.entries.get(hash);
     if (old) this.delete(hash, old);
@@ -59,6 +60,6 @@ export class ResultCache {
 
   private delete(hash: string, entry: Entry): void {
     this.entries.delete(hash);
-    this.bytes -= entry.body.length * 2;
+    this.bytes -= entry.body.length;
   }
 }

@@ -20,24 +20,44 @@ export interface SyncEndpoint<T> {
   compute(request: T): unknown;
 }
 
-/** Milliseconds since the keyed router saw the request (stamped by `stampStart`). */
+/** Milliseconds since the request was stamped (by `stampStart`). */
 function elapsed(res: Response): number {
   return performance.now() - ((res.locals.startedAt as number | undefined) ?? performance.now());
 }
 
-/** Middleware that stamps when the request reached the keyed API (for `Server-Timing`). */
+/**
+ * Middleware that stamps when the server began on a request (for `Server-Timing`); the first
+ * stamp counts, so the app can stamp at its door and routers again for their own mounts.
+ */
 export const stampStart: RequestHandler = (_req, res, next) => {
-  res.locals.startedAt = performance.now();
+  res.locals.startedAt ??= performance.now();
   next();
 };
 
 /** Header that says whether an answer came from the cache. */
 export const CACHE_HEADER = 'Tropline-Cache';
 
+/** Milliseconds as Server-Timing writes them. */
+const ms = (t: number) => t.toFixed(3);
+
+/**
+ * Writes a JSON answer that is already bytes (a cache entry, or one just serialised): no
+ * second encoding, and no ETag (a hash of the whole body, useless on a POST answer).
+ */
+function sendJson(res: Response, body: Buffer, cache: 'hit' | 'miss', timing: string): void {
+  res.setHeader('Server-Timing', timing);
+  res.setHeader(CACHE_HEADER, cache);
+  res.setHeader('Content-Type', 'application/json; charset=utf-8');
+  res.setHeader('Content-Length', body.length);
+  res.status(200).end(body);
+}
+
 /**
  * The pipeline every synchronous compute route shares, in the order that keeps refusals
  * cheap: validate (400), price and bound (422), cache lookup, admission (429), compute, answer.
- * A failure after admission gives the units back.
+ * Far from the limits the computation runs while the admission commits on the ledger's thread;
+ * the answer still waits for the admission to be durable, and a refused request's result is
+ * thrown away. A failure after admission gives the units back.
  */
 export function syncCompute<T>(
   endpoint: SyncEndpoint<T>,
@@ -57,30 +77,45 @@ export function syncCompute<T>(
     const hash = requestHash(principal.tenantId, endpoint.name, req.body);
     const hit = cache.get(hash);
     if (hit !== undefined) {
+      const waited = performance.now();
       await quotas.admit(principal, endpoint.name, COSTS.cached, res, true);
-      res.set('Server-Timing', `compute;dur=0, total;dur=${elapsed(res).toFixed(3)}`);
-      res.set(CACHE_HEADER, 'hit').type('application/json').send(hit);
+      const admitMs = performance.now() - waited;
+      sendJson(res, hit, 'hit', `admit;dur=${ms(admitMs)}, total;dur=${ms(elapsed(res))}`);
       return;
     }
-    const ticket = await quotas.admit(principal, endpoint.name, cost, res);
-    let body: string;
+    const pending = quotas.begin(principal, endpoint.name, cost);
+    let waited = performance.now();
+    if (!pending.overlap) await pending.decided(res);
+    let admitMs = performance.now() - waited;
     const started = performance.now();
-    let computeMs: number;
+    let computeMs = 0;
+    let jsonMs = 0;
+    let body: Buffer | undefined;
+    let failure: unknown;
     try {
       const result = await endpoint.compute(checked.value);
       computeMs = performance.now() - started;
-      body = JSON.stringify(result);
+      body = Buffer.from(JSON.stringify(result));
+      jsonMs = performance.now() - started - computeMs;
     } catch (err) {
+      failure = err;
+    }
+    waited = performance.now();
+    const ticket = await pending.decided(res); // a refusal throws here; the result is dropped
+    admitMs += performance.now() - waited;
+    if (body === undefined) {
       await quotas.refund(ticket);
-      throw engineProblem(err); // rethrows what is not the engine's typed error (a 500)
+      throw engineProblem(failure); // rethrows what is not the engine's typed error (a 500)
     }
     cache.set(hash, body);
     // Server-side time (auth, admission, validation, compute, serialisation) for integrators
     // and the benchmark; the network and the client are not in it.
-    res.set(
-      'Server-Timing',
-      `compute;dur=${computeMs.toFixed(3)}, total;dur=${elapsed(res).toFixed(3)}`,
+    sendJson(
+      res,
+      body,
+      'miss',
+      `compute;dur=${ms(computeMs)}, json;dur=${ms(jsonMs)}, admit;dur=${ms(admitMs)}, ` +
+        `total;dur=${ms(elapsed(res))}`,
     );
-    res.set(CACHE_HEADER, 'miss').type('application/json').send(body);
   };
 }

@@ -3,9 +3,12 @@ import type { Knex } from 'knex';
 import { principalOf, type KeyPrincipal } from '../auth/key-principal';
 import { AuditRepository } from '../audit/audit-repository';
 import { ProblemError, validationProblem, type FieldError } from '../http/problem';
+import { AdmissionOutlook } from './admission-outlook';
+import { ledgerWriter, type LedgerWriter } from './ledger-writer';
 import {
   DEFAULT_PLAN,
   QuotasRepository,
+  type AdmissionOutcome,
   type AdmissionRequest,
   type QuotaPlan,
 } from './quotas-repository';
@@ -31,9 +34,26 @@ function monthSeconds(ms: number): number {
 /** A ticket for an admitted request: keep it to refund the units if the work fails. */
 export type Admission = AdmissionRequest;
 
+/** An admission on its way to the ledger. */
+export interface PendingAdmission {
+  /**
+   * Whether the work may start before {@link decided} (both limits are far off); when false,
+   * await `decided` first so a refusal costs no work.
+   */
+  readonly overlap: boolean;
+  /**
+   * Waits until the admission is durable, sets `RateLimit` and `RateLimit-Policy` on `res`,
+   * and resolves with the ticket; a refusal rejects with the 429 (`Retry-After`, and a body
+   * naming the limit). Release nothing of the work before this resolves.
+   */
+  decided(res: Response): Promise<Admission>;
+}
+
 /** Metering: per-key request rate and per-tenant monthly compute units. */
 export class QuotasService {
   readonly repository: QuotasRepository;
+  private readonly ledger: LedgerWriter;
+  private readonly outlook = new AdmissionOutlook();
   private lastPruned = 0;
 
   constructor(
@@ -41,19 +61,26 @@ export class QuotasService {
     private readonly now: () => number = Date.now,
   ) {
     this.repository = new QuotasRepository(db);
+    this.ledger = ledgerWriter(db);
   }
 
-  /**
-   * Admits a request of `cost` units or throws 429. Either way the response gets `RateLimit`
-   * and `RateLimit-Policy`; a refusal also gets `Retry-After` and a body naming the limit.
-   */
-  async admit(
+  /** Admits a request of `cost` units or throws 429 (see {@link PendingAdmission.decided}). */
+  admit(
     principal: KeyPrincipal,
     endpoint: string,
     cost: number,
     res: Response,
     cached = false,
   ): Promise<Admission> {
+    return this.begin(principal, endpoint, cost, cached).decided(res);
+  }
+
+  /**
+   * Sends a request of `cost` units to the ledger and returns at once, so the caller can work
+   * while the commit waits for the disk. The counters move only in the ledger's guarded
+   * statements, so overlapping changes nothing of who is admitted.
+   */
+  begin(principal: KeyPrincipal, endpoint: string, cost: number, cached = false) {
     const nowMs = this.now();
     const windowStart = Math.floor(nowMs / 60_000) * 60;
     const ticket: Admission = {
@@ -69,7 +96,39 @@ export class QuotasService {
       at: new Date(nowMs).toISOString(),
     };
     this.prune(windowStart);
-    const outcome = await this.repository.admit(ticket);
+    const overlap = this.outlook.mayOverlap(ticket);
+    this.outlook.sent(ticket);
+    const outcome = this.ledger.write({ kind: 'admit', request: ticket }).then(
+      (o) => {
+        this.outlook.heard(ticket, o as AdmissionOutcome);
+        return o as AdmissionOutcome;
+      },
+      (err: unknown) => {
+        this.outlook.heard(ticket, undefined);
+        throw err;
+      },
+    );
+    outcome.catch(() => undefined); // the caller hears of it from `decided`
+    let decided: Promise<Admission> | undefined;
+    return {
+      overlap,
+      decided: (res: Response) =>
+        (decided ??= outcome.then((o) => {
+          this.answer(principal, ticket, o, nowMs, res);
+          return ticket;
+        })),
+    } satisfies PendingAdmission;
+  }
+
+  /** Sets the rate-limit fields for an outcome; throws the 429 of a refusal. */
+  private answer(
+    principal: KeyPrincipal,
+    ticket: Admission,
+    outcome: AdmissionOutcome,
+    nowMs: number,
+    res: Response,
+  ): void {
+    const { windowStart, cost } = ticket;
     const minuteReset = windowStart + 60 - Math.floor(nowMs / 1000);
     const monthReset = Math.ceil((nextPeriodStart(nowMs) - nowMs) / 1000);
     const states: LimitState[] = [
@@ -90,27 +149,25 @@ export class QuotasService {
     ];
     const headers = rateLimitHeaders(states);
     res.set(headers);
-    if (outcome.refused) {
-      const perMinute = outcome.refused === 'per-minute';
-      const retryAfter = perMinute ? minuteReset : monthReset;
-      const resetsAt = new Date(
-        perMinute ? (windowStart + 60) * 1000 : nextPeriodStart(nowMs),
-      ).toISOString();
-      throw new ProblemError(
-        429,
-        perMinute ? 'rate-limited' : 'quota-exceeded',
-        perMinute ? 'Too many requests' : 'Monthly compute units used up',
-        perMinute
-          ? `This key may make ${principal.perMinute} requests per minute; the window resets ` +
-              `at ${resetsAt}.`
-          : `This request costs ${cost} units and ${Math.max(0, principal.monthlyUnits - outcome.used)}` +
-              ` of the tenant's ${principal.monthlyUnits} monthly units are left; the quota resets ` +
-              `at ${resetsAt}.`,
-        { limit: outcome.refused, cost, resetsAt, retryAfter },
-        { ...headers, 'Retry-After': String(retryAfter) },
-      );
-    }
-    return ticket;
+    if (!outcome.refused) return;
+    const perMinute = outcome.refused === 'per-minute';
+    const retryAfter = perMinute ? minuteReset : monthReset;
+    const resetsAt = new Date(
+      perMinute ? (windowStart + 60) * 1000 : nextPeriodStart(nowMs),
+    ).toISOString();
+    throw new ProblemError(
+      429,
+      perMinute ? 'rate-limited' : 'quota-exceeded',
+      perMinute ? 'Too many requests' : 'Monthly compute units used up',
+      perMinute
+        ? `This key may make ${principal.perMinute} requests per minute; the window resets ` +
+            `at ${resetsAt}.`
+        : `This request costs ${cost} units and ${Math.max(0, principal.monthlyUnits - outcome.used)}` +
+            ` of the tenant's ${principal.monthlyUnits} monthly units are left; the quota resets ` +
+            `at ${resetsAt}.`,
+      { limit: outcome.refused, cost, resetsAt, retryAfter },
+      { ...headers, 'Retry-After': String(retryAfter) },
+    );
   }
 
   /**
@@ -126,7 +183,13 @@ export class QuotasService {
 
   /** Returns an admitted request's units (the computation failed through no fault of quota). */
   async refund(ticket: Admission): Promise<void> {
-    await this.repository.refund({ ...ticket, at: new Date(this.now()).toISOString() });
+    const request = { ...ticket, at: new Date(this.now()).toISOString() };
+    await this.ledger.write({ kind: 'refund', request });
+  }
+
+  /** Waits for the ledger's pending writes, then stops its thread. */
+  close(): Promise<void> {
+    return this.ledger.close();
   }
 
   /** Sets a tenant's plan (operator); fields left out keep their current value. */
@@ -176,6 +239,6 @@ export class QuotasService {
     this.lastPruned = windowStart;
     // Old windows limit nothing; dropping them is housekeeping, so a failure only waits for
     // the next minute.
-    this.repository.pruneWindows(windowStart - 120).catch(() => undefined);
+    this.ledger.write({ kind: 'prune', before: windowStart - 120 }).catch(() => undefined);
   }
 }
