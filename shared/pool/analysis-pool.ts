@@ -24,6 +24,7 @@ import type { SweepPoint } from '../sweep/sweep-point';
 import type { AnalysisTask, TaskFailure } from './analysis-task';
 import { chunkCount, planChunks } from './plan-chunks';
 import { FairScheduler, type RunPriority } from './fair-scheduler';
+import { WORKER_NICENESS } from './thread-priority';
 
 /** Progress, cancellation and scheduling of one analysis run. */
 export interface AnalysisRunOptions {
@@ -81,7 +82,8 @@ export interface AnalysisPoolOptions {
   readonly chunksPerWorker?: number;
   /**
    * Nice value the worker threads lower themselves to (Linux; elsewhere ignored), so a busy pool
-   * yields a core to the request thread the moment it needs one; default 10, 0 leaves them be.
+   * yields a core to the request thread the moment it needs one; default {@link WORKER_NICENESS}
+   * (10), 0 leaves them be.
    */
   readonly niceness?: number;
 }
@@ -116,7 +118,7 @@ export function createAnalysisPool(options: AnalysisPoolOptions): AnalysisPool {
     minThreads: size,
     maxThreads: size,
     idleTimeout: 60_000,
-    workerData: { niceness: options.niceness ?? 10 },
+    workerData: { niceness: options.niceness ?? WORKER_NICENESS },
   });
   // One chunk per worker at a time: what waits, waits here, where turns are kept.
   const scheduler = new FairScheduler<AnalysisTask>(size, (task, signal) =>
