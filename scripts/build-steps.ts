@@ -39,7 +39,7 @@ export const BUILD_STEPS: readonly BuildStep[] = [
   {
     name: 'demo-portal',
     inputs: ['projects/demo-portal', 'projects/widgets', 'shared', ...SHARED_INPUTS],
-    command: ['npx', 'ng', 'build', 'demo-portal'],
+    command: ['npx', 'tsx', 'projects/demo-portal/build-portal.ts'],
     output: 'dist/demo-portal',
   },
   {
