@@ -1,21 +1,22 @@
 import { availableParallelism } from 'node:os';
-import { Router } from 'express';
+import { type RequestHandler, Router } from 'express';
 import type { Knex } from 'knex';
 import { KeysService } from '../keys/keys-service';
 import type { AnalysisPool } from '@tropline/core';
 import { createAnalysisPool } from '@tropline/core/node';
-import { analysesRoutes } from '../analyses/analyses-routes';
+import { analysesRoutes, regimesEndpoint } from '../analyses/analyses-routes';
 import { jobsRoutes } from '../jobs/jobs-routes';
 import { JobsService } from '../jobs/jobs-service';
 import { keysRoutes } from '../keys/keys-routes';
 import { ProjectionPool } from '../projections/projection-pool';
 import {
   COMPUTE_LIMITS,
+  equilibriaEndpoint,
   projectionsRoutes,
   type ComputeLimits,
 } from '../projections/projections-routes';
 import { ResultCache } from '../projections/result-cache';
-import { stampStart } from '../projections/sync-compute';
+import { stampStart, syncCompute } from '../projections/sync-compute';
 import { QuotasService } from '../quotas/quotas-service';
 import { usageRoutes } from '../quotas/usage-routes';
 import { keyCorsPreflight } from './key-cors';
@@ -38,6 +39,15 @@ export interface KeyedApi {
    * `/console/compute` behind a signed-in member's role.
    */
   computeRoutes(guard: KeyGuard): Router;
+  /**
+   * The open `POST /regimes` and `POST /equilibria` handlers (validation, price, bounds, cache,
+   * admission, pool) for routes that build the request body themselves: a published
+   * scenario's what-ifs are priced and computed exactly as the open routes.
+   */
+  readonly analysisHandlers: {
+    readonly regimes: RequestHandler;
+    readonly equilibria: RequestHandler;
+  };
   /** Stops background work (job runner, pool). */
   close(): Promise<void>;
 }
@@ -89,6 +99,10 @@ export function keyedApi(
     quotas,
     jobs,
     computeRoutes,
+    analysisHandlers: {
+      regimes: syncCompute(regimesEndpoint(pool), quotas, cache),
+      equilibria: syncCompute(equilibriaEndpoint, quotas, cache),
+    },
     close: async () => {
       await jobs.close();
       await projectionPool.close();

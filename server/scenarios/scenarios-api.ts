@@ -10,6 +10,7 @@ import { DatasetsService } from '../datasets/datasets-service';
 import type { JobsService } from '../jobs/jobs-service';
 import type { KeysService } from '../keys/keys-service';
 import type { QuotasService } from '../quotas/quotas-service';
+import { publishedAnalysesRoutes, type OpenAnalysisHandlers } from './published-analyses-routes';
 import { scenarioGuard } from './scenario-access';
 import { scenariosRoutes } from './scenarios-routes';
 import { ScenariosService } from './scenarios-service';
@@ -35,6 +36,7 @@ export function scenariosApi(
     readonly keys: KeysService;
     readonly quotas: QuotasService;
     readonly jobs: JobsService;
+    readonly analysisHandlers: OpenAnalysisHandlers;
   },
 ): ScenariosApi {
   const guard = scenarioGuard(sessions, now, keyed);
@@ -44,6 +46,7 @@ export function scenariosApi(
   keyed.jobs.register(calibrationKind(pool));
   const router = Router();
   router.use(scenariosRoutes(scenarios, guard, keyed.quotas));
+  router.use(publishedAnalysesRoutes(scenarios, guard, keyed.analysisHandlers));
   router.use(datasetsRoutes(datasets, guard));
   router.use(calibrationRoutes(db, keyed.jobs, scenarios, datasets, guard));
   return { router, scenarios, datasets, close: () => pool.close() };

@@ -1,16 +1,10 @@
 import { Router, type Request } from 'express';
-import { z } from 'zod';
-import {
-  issuesFromZod,
-  projectValidated,
-  whatIfChangeSchema,
-  whatIfIssues,
-  withParameter,
-} from '@tropline/core';
-import { ProblemError, validationProblem } from '../http/problem';
+import { projectValidated } from '@tropline/core';
+import { validationProblem } from '../http/problem';
 import { engineProblem } from '../projections/engine-problem';
 import { projectionCost } from '../quotas/compute-costs';
 import type { QuotasService } from '../quotas/quotas-service';
+import { publishedWhatIf, whatIfProjectionBody } from './published-what-if';
 import { actorOf, type ScenarioGuard } from './scenario-access';
 import { versionView, type ScenariosService } from './scenarios-service';
 
@@ -25,12 +19,6 @@ export function intParam(req: Request, name: string, where: 'params' | 'query' =
   }
   return n;
 }
-
-const whatIfBody = z.strictObject({
-  changes: z.array(whatIfChangeSchema).max(12).optional(),
-  horizon: z.number().positive().optional(),
-  samples: z.number().int().min(2).max(2001).optional(),
-});
 
 /**
  * Scenario routes: list, create, versions (save, read, publish, retire), compare, export and
@@ -116,36 +104,23 @@ export function scenariosRoutes(
   });
 
   router.post('/published-scenarios/:publicId/projections', readPublished, async (req, res) => {
-    const actor = actorOf(req);
-    if (!actor.principal) {
-      throw new ProblemError(
-        403,
-        'key-required',
-        'A key is needed to compute',
-        'What-if projections are priced in compute units; call them with an API key.',
-      );
-    }
-    const { version } = await service.published(actor.tenantId, String(req.params.publicId));
-    const shape = whatIfBody.safeParse(req.body ?? {});
-    if (!shape.success) throw validationProblem(issuesFromZod(shape.error));
-    const c = version.content;
-    const changes = shape.data.changes ?? [];
-    const errors = whatIfIssues(c.publicParameters, changes);
-    const horizon = shape.data.horizon ?? c.horizon;
-    if (horizon > c.horizon) {
-      errors.push({ pointer: '/horizon', message: `at most the scenario's horizon ${c.horizon}` });
-    }
-    if (errors.length) throw validationProblem(errors);
-    let model = c.model;
-    for (const change of changes) model = withParameter(model, change.pointer, change.value);
+    const { principal, content, body, changes, model } = await publishedWhatIf(
+      service,
+      req,
+      whatIfProjectionBody,
+      (b, c) =>
+        (b.horizon ?? c.horizon) > c.horizon
+          ? [{ pointer: '/horizon', message: `at most the scenario's horizon ${c.horizon}` }]
+          : [],
+    );
     const request = {
       model,
-      initial: c.initial,
-      horizon,
-      samples: shape.data.samples ?? 201,
+      initial: content.initial,
+      horizon: body.horizon ?? content.horizon,
+      samples: body.samples ?? 201,
       tolerance: 1e-8,
     };
-    const ticket = await quotas.admit(actor.principal, 'projections', projectionCost(request), res);
+    const ticket = await quotas.admit(principal, 'projections', projectionCost(request), res);
     try {
       res.json({ changes, ...projectValidated(request, { wallTimeMs: 2000 }) });
     } catch (err) {

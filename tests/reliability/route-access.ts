@@ -107,6 +107,8 @@ export const ROUTE_ACCESS: Readonly<Record<string, Access>> = {
   'get /scenarios/{id}/comparison': read,
   'get /published-scenarios/{publicId}': { ...read, browser: true },
   'post /published-scenarios/{publicId}/projections': { ...read, browser: true, keyOnly: true },
+  'post /published-scenarios/{publicId}/regimes': { ...read, browser: true, keyOnly: true },
+  'post /published-scenarios/{publicId}/equilibria': { ...read, browser: true, keyOnly: true },
   'get /scenarios/{id}/datasets': dataRead,
   'post /scenarios/{id}/datasets': dataWrite,
   'get /scenarios/{id}/datasets/{version}': dataRead,
