@@ -97,7 +97,7 @@ export function accountsApi(
   router.use(consoleKeysRoutes(db, keyed.keys));
   router.use(consoleUsageRoutes(db, now));
   router.use(ownerTenantRoutes(db, now, () => mailer.afterCommit()));
-  router.use(operatorRoutes(db, keyed.quotas, now));
+  router.use(operatorRoutes(db, now));
   router.use(planOffersRoutes(db, now));
   if (mailer.catcher) router.use(mailboxRoutes(mailer.catcher));
 

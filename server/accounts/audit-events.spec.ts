@@ -1,5 +1,7 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { DEMO_TENANT } from '../../seeds/01-demo-tenant';
+import { SCENARIO_CONTENT } from '../../tests/reliability/crash-load';
 import {
   clockedApp,
   demoUser,
@@ -51,13 +53,42 @@ describe('the audit trail', () => {
             .expect(201),
       ],
       ['quota.set', () => send(operator, 'put', '/tenants/larchmere/plan').send({}).expect(200)],
+      [
+        'tenant.create',
+        () =>
+          send(operator, 'post', '/tenants')
+            .send({ slug: 'one-event', name: 'One Event Basin' })
+            .expect(201),
+      ],
+      [
+        'quota.plan-change',
+        () => send(owner, 'put', '/tenant/plan').send({ offer: 'catchment' }).expect(200),
+      ],
+      [
+        'tenant.update',
+        () =>
+          send(owner, 'patch', '/tenant').send({ contactEmail: null, name: 'Renamed' }).expect(200),
+      ],
     ];
     for (const [action, act] of cases) {
       const written = await eventsOf(act);
       expect(written.map((e) => e.action)).toEqual([action]);
-      // The quotas service records no address (it is not handed the request).
-      if (action !== 'quota.set') expect(written[0].address).toMatch(/127\.0\.0\.1|::1/);
+      expect(written[0].address, action).toMatch(/127\.0\.0\.1|::1/);
     }
+    await send(owner, 'patch', '/tenant').send({ name: DEMO_TENANT.name }).expect(200);
+
+    // A signed-in analyst publishes a first version through the console session.
+    const analyst = await signInDemo(t.app, 'analyst');
+    const saved = await send(analyst, 'post', '/scenarios')
+      .send({ ...SCENARIO_CONTENT, changeNote: 'Audit check' })
+      .expect(201);
+    const scenarioId = saved.body.scenario.id as string;
+    const published = await eventsOf(() =>
+      send(analyst, 'post', `/scenarios/${scenarioId}/versions/1/publish`).expect(200),
+    );
+    expect(published.map((e) => [e.action, e.actor, e.target])).toEqual([
+      ['scenario.published', `user:${analyst.session.user.id}`, `scenario:${scenarioId}`],
+    ]);
 
     const members = await owner.agent.get('/api/v1/members').expect(200);
     const viewerId = members.body.members.find((m: { email: string }) => m.email === viewer.email)

@@ -130,7 +130,7 @@ export class OwnerTenantService {
       });
       if (offer.monthlyUnits < used) throw belowUsage(offer, used, nowMs);
       await offers.putTenantOnOffer(access.tenantId, offer, at);
-      await rearmAlerts(trx, access.tenantId, period, used, offer);
+      await rearmAlerts(trx, access.tenantId, period, used, offer.monthlyUnits);
       const previous = before.offerId ? await offers.find(before.offerId) : undefined;
       await new AuditRepository(trx).record({
         tenantId: access.tenantId,
@@ -204,15 +204,15 @@ function belowUsage(offer: PlanOffer, used: number, nowMs: number): ProblemError
   );
 }
 
-/** Forgets this month's alerts for thresholds the tenant is below under the new allowance. */
-async function rearmAlerts(
+/** Forgets this month's alerts for thresholds the tenant is below under a new allowance. */
+export async function rearmAlerts(
   trx: Knex.Transaction,
   tenantId: string,
   period: string,
   used: number,
-  offer: PlanOffer,
+  monthlyUnits: number,
 ): Promise<void> {
-  const below = QUOTA_THRESHOLDS.filter((t) => used * 100 < offer.monthlyUnits * t);
+  const below = QUOTA_THRESHOLDS.filter((t) => used * 100 < monthlyUnits * t);
   if (below.length === 0) return;
   await trx('quota_alerts')
     .where({ tenant_id: tenantId, period })
