@@ -12,7 +12,7 @@ import {
 import { MatButton } from '@angular/material/button';
 import { MatIcon } from '@angular/material/icon';
 import { MatTableModule } from '@angular/material/table';
-import { RouterLink } from '@angular/router';
+import { Router, RouterLink } from '@angular/router';
 import { PageData } from '../common/page-data';
 import { Skeleton } from '../common/page-states';
 import { ProblemAlert } from '../problem/problem-alert';
@@ -22,6 +22,7 @@ import { DatasetUploader } from './dataset-uploader';
 import { EmbedSnippet } from './embed-snippet';
 import { ProjectionPreview } from './projection-preview';
 import { PublishPanel } from './publish-panel';
+import { ScenarioAnalyses } from './scenario-analyses';
 import { ScenariosApi } from './scenarios-api';
 import type { Dataset, ScenarioSaved } from './scenario-types';
 
@@ -33,8 +34,10 @@ async function loadAll(api: ScenariosApi, id: string) {
 }
 
 /**
- * One scenario: its versions, a preview of a version with the widgets, monitoring data,
- * calibration, publication with public ranges, retirement and the embed snippet.
+ * One scenario: its versions (each comparable with the one before), a preview of a version
+ * with the widgets, the analyses of the previewed version for members who may run them, the
+ * way to edit it into a new version, monitoring data, calibration, publication with public
+ * ranges, retirement and the embed snippet.
  */
 @Component({
   selector: 'tc-scenario-page',
@@ -51,6 +54,7 @@ async function loadAll(api: ScenariosApi, id: string) {
     EmbedSnippet,
     ProjectionPreview,
     PublishPanel,
+    ScenarioAnalyses,
   ],
   templateUrl: './scenario-page.html',
   styleUrl: './scenario-page.scss',
@@ -64,8 +68,11 @@ export class ScenarioPage {
   readonly id = input.required<string>();
 
   protected readonly data = new PageData(() => loadAll(this.api, this.id()), 'load the scenario');
-  protected readonly versionColumns = ['version', 'status', 'note', 'created', 'show'];
-  protected readonly announcement = signal('');
+  protected readonly versionColumns = ['version', 'status', 'note', 'created', 'compare', 'show'];
+  /** What the last action did; an edit page hands over its save through the navigation. */
+  protected readonly announcement = signal(
+    String(inject(Router).currentNavigation()?.extras.state?.['announce'] ?? ''),
+  );
   /** The version previewed; the latest until another is chosen. */
   protected readonly previewed = new PageData(
     () => this.api.version(this.id(), this.previewNumber() ?? this.latestNumber()!),

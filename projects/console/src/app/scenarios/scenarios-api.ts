@@ -12,6 +12,14 @@ import type {
   ScenarioSummary,
   ScenarioVersion,
 } from './scenario-types';
+import type { VersionChange } from './version-fields';
+
+/** The answer of `GET /scenarios/{id}/comparison`. */
+export interface VersionComparison {
+  readonly from: number;
+  readonly to: number;
+  readonly changes: readonly VersionChange[];
+}
 
 const BASE = '/api/v1';
 const enc = encodeURIComponent;
@@ -51,6 +59,15 @@ export class ScenariosApi {
   save(id: string, body: ScenarioSaveBody): Promise<ScenarioSaved> {
     return firstValueFrom(
       this.http.post<ScenarioSaved>(`${BASE}/scenarios/${enc(id)}/versions`, body),
+    );
+  }
+
+  /** The fields that differ between two versions, as JSON Pointers with both values. */
+  compare(id: string, from: number, to: number): Promise<VersionComparison> {
+    return firstValueFrom(
+      this.http.get<VersionComparison>(`${BASE}/scenarios/${enc(id)}/comparison`, {
+        params: { from, to },
+      }),
     );
   }
 
