@@ -162,6 +162,52 @@ describe('custom elements on a plain HTML page in Chromium', () => {
     await page.screenshot({ path: resolve(ARTIFACTS, 'elements-plain-page.png'), fullPage: true });
   }, 150_000);
 
+  it('runs the long-run element on the same page: regime in words and a drawn sweep', async () => {
+    const { page, trouble } = await openWatched(browser, served.base + '/demo/plain/');
+    // A third element, added as a CMS block would add it, with the page's own API and key.
+    const kinds = await page.evaluate(
+      () =>
+        new Promise<string[]>((done) => {
+          const el = document.createElement('tropline-long-run');
+          const seen: string[] = [];
+          el.addEventListener('tropline-result', (e) => {
+            seen.push((e as CustomEvent<{ kind: string }>).detail.kind);
+            if (seen.includes('regime') && seen.includes('sweep')) done(seen);
+          });
+          const onPage = document.querySelector('tropline-projection')!;
+          for (const name of ['api-url', 'api-key']) {
+            el.setAttribute(name, onPage.getAttribute(name)!);
+          }
+          el.setAttribute('scenario', 'larchmere-brackenlow-mere');
+          document.querySelector('main')!.append(el);
+        }),
+    );
+    expect(kinds).toContain('regime');
+    expect(kinds).toContain('sweep');
+    const longRun = page.locator('tropline-long-run');
+    // The mere's groups are the benchmark's at b1 = 3 (Hastings & Powell 1991): chaotic.
+    await expect
+      .poll(() => longRun.locator('[data-regime]').getAttribute('data-regime'))
+      .toBe('chaotic');
+    await expect
+      .poll(() => longRun.locator('tropline-caution-notice').textContent())
+      .toContain('not forecasts');
+    // Its label names the published scenario (the seeded mere's title).
+    const chart = longRun.getByRole('img', {
+      name: 'Long-run peaks: Brackenlow Mere plankton chain (invented)',
+      exact: true,
+    });
+    await expect.poll(() => chart.count()).toBe(1);
+    await expect
+      .poll(() => longRun.locator('tropline-bifurcation-chart figcaption').textContent())
+      .toMatch(/\d/);
+    expect(await page.evaluate(() => window.__cspViolations ?? [])).toEqual([]);
+    expect(trouble.violations).toEqual([]);
+    expect(trouble.console).toEqual([]);
+    expect(trouble.outside).toEqual([]);
+    await longRun.screenshot({ path: resolve(ARTIFACTS, 'elements-long-run.png') });
+  }, 150_000);
+
   it('says so, as an event and on the page, when a scenario is not published', async () => {
     const { page, trouble } = await openWatched(browser, served.base + '/demo/plain/');
     const refusal = await page.evaluate(
