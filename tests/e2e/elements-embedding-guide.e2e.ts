@@ -8,6 +8,7 @@ import { CHROMIUM_ARGS, ensureChromium } from './chromium';
 import { type ServedApp, serveForBrowser } from './served-app';
 
 const GUIDE = resolve(import.meta.dirname, '../../docs/embedding.md');
+const README = resolve(import.meta.dirname, '../../README.md');
 
 const squash = (s: string) => s.replace(/\s+/g, ' ').trim();
 /** Markdown inline syntax as a reader sees it: code, bold and links as their text. */
@@ -119,6 +120,29 @@ describe('the embedding guide at /docs/embedding', () => {
     for (const file of ['tropline-elements.js', 'tropline-elements.css']) {
       expect(md).toContain(file);
       expect((await fetch(`${served.base}/elements/${file}`)).status).toBe(200);
+    }
+  });
+
+  it('is summed up in the README, topic by topic, with links to the guide and Storybook', () => {
+    const readme = readFileSync(README, 'utf8');
+    const start = readme.indexOf('## Embedding the widgets\n');
+    expect(start).toBeGreaterThan(0);
+    const section = readme.slice(start, readme.indexOf('\n## ', start + 1));
+    for (const topic of [
+      '`/docs/embedding`', // the full guide
+      'provideTropline({ apiUrl, apiKey })', // install and provider
+      '<tropline-projection', // the custom-element snippet
+      '--tropline-series-1…4', // theming
+      '`locale`', // locale
+      'browser key bound to their origins', // keys and allowed origins
+      'origin not allowed (403)',
+      'allowance used up', // quotas and what the widgets show when refused
+      'says why in plain words',
+      'not colour alone', // accessibility
+      'the cautions are always shown',
+      '[Storybook](/storybook/)',
+    ]) {
+      expect(section, topic).toContain(topic);
     }
   });
 });
