@@ -314,22 +314,8 @@ export type {
   /** Per-level figures of one scenario. */
   LevelSummary,
 } from './compare/scenario-levels';
-// createAnalysisPool is Node-only: it lives in './node' (`@tropline/core/node`) so browser
-// bundles never reach piscina or Node built-ins. Its types stay here.
-export type {
-  /** The pool: runSweep, runRegimeMap, runEnsemble, runComparison, runRegime, close. */
-  AnalysisPool,
-  /** `{ size, chunksPerWorker? }`. */
-  AnalysisPoolOptions,
-  /** `{ onProgress?, signal? }`. */
-  AnalysisRunOptions,
-  /** A sweep's points and counters. */
-  SweepResult,
-  /** A regime map. */
-  RegimeMapResult,
-  /** A comparison's scenarios. */
-  ComparisonResult,
-} from './pool/analysis-pool';
+// The worker pool and its types are Node-only: './node' (`@tropline/core/node`). Not even its
+// types are re-exported here, so browser programs that import this barrel never type-check it.
 
 // ── Analyses: work estimates for quotas (analyses work) ─────────────────────────────────────
 export {

@@ -1,7 +1,9 @@
 /**
  * @tropline/core/node: the Node-only part of the engine — the worker pool (piscina,
- * worker_threads) the server runs heavy analyses on. Browser bundles import '@tropline/core',
- * which must never reach Node built-ins; server code imports the pool from here.
+ * worker_threads, thread priorities) the server runs heavy analyses on, and its types. Browser
+ * code imports '@tropline/core/contract' (Angular hosts' specs may import '@tropline/core'),
+ * neither of which may reach Node built-ins, not even for types: a browser program that only
+ * type-checks the pool's file fails without Node's types. Server code imports the pool from here.
  */
 export {
   /** The piscina worker pool the server runs analyses on. */
@@ -11,3 +13,17 @@ export {
   /** Lowers a worker thread's own scheduling priority (Linux), for the server's pools. */
   lowerThreadPriority,
 } from './pool/thread-priority';
+export type {
+  /** The pool: runSweep, runRegimeMap, runEnsemble, runComparison, runRegime, close. */
+  AnalysisPool,
+  /** `{ size, chunksPerWorker? }`. */
+  AnalysisPoolOptions,
+  /** `{ onProgress?, signal? }`. */
+  AnalysisRunOptions,
+  /** A sweep's points and counters. */
+  SweepResult,
+  /** A regime map. */
+  RegimeMapResult,
+  /** A comparison's scenarios. */
+  ComparisonResult,
+} from './pool/analysis-pool';

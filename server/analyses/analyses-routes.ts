@@ -4,9 +4,9 @@ import {
   AnalysisBoundsError,
   regimeWork,
   validateRegimeRequest,
-  type AnalysisPool,
   type RegimeRequest,
 } from '@tropline/core';
+import type { AnalysisPool } from '@tropline/core/node';
 import type { KeyGuard } from '../auth/require-key';
 import { createJobHandler } from '../jobs/jobs-routes';
 import type { JobsService } from '../jobs/jobs-service';

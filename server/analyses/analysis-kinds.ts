@@ -11,12 +11,12 @@ import {
   validateEnsembleRequest,
   validateRegimeMapRequest,
   validateSweepRequest,
-  type AnalysisPool,
   type ComparisonRequest,
   type EnsembleRequest,
   type RegimeMapRequest,
   type SweepRequest,
 } from '@tropline/core';
+import type { AnalysisPool } from '@tropline/core/node';
 import type { JobKind } from '../jobs/job-kind';
 import { workCost } from '../quotas/compute-costs';
 
