@@ -2,9 +2,11 @@
 import { mkdirSync } from 'node:fs';
 import { resolve } from 'node:path';
 import AxeBuilder from '@axe-core/playwright';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { expect } from 'vitest';
+import { type Browser, type BrowserContext, chromium, type Page } from 'playwright-core';
+import { afterAll, beforeAll, expect } from 'vitest';
+import { CHROMIUM_ARGS, ensureChromium } from './chromium';
 import { localOnlyContext } from './local-only-context';
+import { type ServedApp, serveForBrowser } from './served-app';
 
 /** Where the console journeys leave their screenshots (git-ignored). */
 export const CONSOLE_ARTIFACTS = resolve(import.meta.dirname, '../artifacts/console');
@@ -69,4 +71,107 @@ export async function openFromNav(page: Page, label: string): Promise<void> {
   await link.focus();
   await page.keyboard.press('Enter');
   await page.getByRole('heading', { level: 1, name: label }).waitFor();
+}
+
+/**
+ * Serves the product and starts Chromium around the enclosing `describe`, stopping both after
+ * it; the getters read them inside the tests.
+ */
+export function servedConsole(): { served: () => ServedApp; browser: () => Browser } {
+  let served: ServedApp | undefined;
+  let browser: Browser | undefined;
+  beforeAll(async () => {
+    served = await serveForBrowser();
+    browser = await chromium.launch({ executablePath: ensureChromium(), args: CHROMIUM_ARGS });
+  });
+  afterAll(async () => {
+    await browser?.close();
+    await served?.stop();
+  });
+  return { served: () => served!, browser: () => browser! };
+}
+
+/** The accessible name of the focused element, roughly as a screen reader would say it. */
+export function focusedName(page: Page): Promise<string> {
+  return page.evaluate(() => {
+    const el = document.activeElement as HTMLElement | null;
+    if (!el || el === document.body) return '';
+    const text = (ids: string) =>
+      ids
+        .split(/\s+/)
+        .map((id) => document.getElementById(id)?.textContent ?? '')
+        .join(' ');
+    const labelled = el.getAttribute('aria-labelledby');
+    const input = el as HTMLInputElement;
+    // Icons (ligature text) and anything hidden from assistive technology are not read out.
+    const shown = () => {
+      const copy = el.cloneNode(true) as HTMLElement;
+      copy.querySelectorAll('mat-icon, [aria-hidden="true"]').forEach((n) => n.remove());
+      return copy.textContent ?? '';
+    };
+    const name =
+      el.getAttribute('aria-label') ??
+      (labelled ? text(labelled) : null) ??
+      (input.labels?.[0]?.textContent || null) ??
+      shown();
+    return name.replace(/\s+/g, ' ').trim();
+  });
+}
+
+/**
+ * Presses Tab (Shift+Tab with `back`) until the focused element's name matches, as someone
+ * without a mouse would; fails when it is not reached within `max` presses.
+ */
+export async function tabTo(
+  page: Page,
+  name: string | RegExp,
+  { back = false, max = 120 }: { back?: boolean; max?: number } = {},
+): Promise<void> {
+  const seen: string[] = [];
+  for (let i = 0; i < max; i++) {
+    await page.keyboard.press(back ? 'Shift+Tab' : 'Tab');
+    const now = await focusedName(page);
+    if (typeof name === 'string' ? now === name : name.test(now)) return;
+    seen.push(now);
+  }
+  throw new Error(`Tab never reached ${String(name)}; passed ${seen.join(' | ')}`);
+}
+
+/**
+ * Expects the focused element to show where the focus is: the browser counts it as keyboard
+ * focus (`:focus-visible`) and it, or the Material control drawing it, has a visible outline.
+ */
+export async function expectFocusVisible(page: Page, where: string): Promise<void> {
+  const why = await page.evaluate(() => {
+    const el = document.activeElement as HTMLElement | null;
+    if (!el || el === document.body) return 'nothing has the focus';
+    if (!el.matches(':focus-visible')) return `${el.tagName} is focused but not :focus-visible`;
+    const ringed = (e: Element | null) => {
+      if (!e) return false;
+      const s = getComputedStyle(e);
+      return s.outlineStyle !== 'none' && parseFloat(s.outlineWidth) >= 2;
+    };
+    const field = el.closest('.mat-mdc-form-field');
+    if (field)
+      return field.classList.contains('mat-focused') ? '' : 'form field not marked focused';
+    const drawn = el.closest('.mat-mdc-checkbox, .mat-mdc-radio-button');
+    return ringed(el) || ringed(drawn)
+      ? ''
+      : `${el.tagName} "${el.textContent}" has no visible ring`;
+  });
+  expect(why, `focus visible: ${where}`).toBe('');
+}
+
+/** Expects the focus to be inside the open dialog. */
+export async function expectFocusInDialog(page: Page, where: string): Promise<void> {
+  // The dialog takes the focus once it has opened (after its animation).
+  await expect
+    .poll(
+      () =>
+        page.evaluate(
+          () => !!document.activeElement?.closest('mat-dialog-container, [role="dialog"]'),
+        ),
+      { message: `focus inside the dialog: ${where}` },
+    )
+    .toBe(true);
 }

@@ -120,13 +120,36 @@ describe('console: members, invitations and roles', () => {
     expect(await page.getByRole('region', { name: 'Invite a colleague' }).count()).toBe(0);
     await checkpoint(page, 'viewer-02-members');
 
+    // A scenario: read it, preview versions, compare them, but nothing to edit, run or publish.
+    await openFromNav(page, 'Scenarios');
+    expect(await page.getByRole('link', { name: 'New scenario' }).count()).toBe(0);
+    await page
+      .getByRole('link', { name: 'Hobcairn Moor browsing chain (invented)' })
+      .first()
+      .click();
+    await page.getByRole('heading', { level: 1, name: /Hobcairn Moor/ }).waitFor();
+    await page.locator('tropline-trajectory-chart canvas').first().waitFor();
+    const main = page.locator('main');
+    expect(await main.getByRole('link', { name: /^Edit/ }).count()).toBe(0);
+    for (const part of ['tc-scenario-analyses', 'tc-dataset-uploader', 'tc-publish-panel']) {
+      expect(await page.locator(part).count(), part).toBe(0);
+    }
+    const buttons = (await main.getByRole('button').allTextContents()).map((t) => t.trim());
+    expect(buttons.filter((b) => /publish|retire|calibrat|run|upload|save|edit/i.test(b))).toEqual(
+      [],
+    );
+    await checkpoint(page, 'viewer-03-scenario');
+    const scenarioUrl = page.url();
+    await page.goto(`${scenarioUrl}/edit`, { waitUntil: 'networkidle' });
+    await page.getByRole('heading', { name: 'This page is not available to your role' }).waitFor();
+
     // Typing the address of an admin page explains instead of showing controls.
     await page.goto(`${served.base}/console/keys`, { waitUntil: 'networkidle' });
     await page.getByRole('heading', { name: 'This page is not available to your role' }).waitFor();
     expect(await page.locator('main').textContent()).toContain(
       'As viewer your role covers reading',
     );
-    await checkpoint(page, 'viewer-03-not-allowed');
+    await checkpoint(page, 'viewer-04-not-allowed');
 
     // And the server agrees.
     const status = await page.evaluate(async () => {
@@ -139,6 +162,17 @@ describe('console: members, invitations and roles', () => {
       return res.status;
     });
     expect(status).toBe(403);
+    // Nor may a viewer run analyses on the session's compute routes (`analyses:run`).
+    const compute = await page.evaluate(async () => {
+      const session = await (await fetch('/api/v1/session')).json();
+      const res = await fetch('/api/v1/console/compute/equilibria', {
+        method: 'POST',
+        headers: { 'Content-Type': 'application/json', 'X-CSRF-Token': session.csrfToken },
+        body: JSON.stringify({ model: {} }),
+      });
+      return { status: res.status, action: (await res.json()).action };
+    });
+    expect(compute).toEqual({ status: 403, action: 'analyses:run' });
     expect(outside).toEqual([]);
   });
 });

@@ -1,10 +1,15 @@
 /// <reference lib="dom" />
-import { type Browser, chromium, type Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { UPLAND_DEMO } from '@tropline/core';
-import { CHROMIUM_ARGS, ensureChromium } from './chromium';
-import { checkpoint, consoleContext, DEMO, openFromNav, signIn } from './console-browser';
-import { type ServedApp, serveForBrowser } from './served-app';
+import {
+  checkpoint,
+  consoleContext,
+  DEMO,
+  openFromNav,
+  servedConsole,
+  signIn,
+} from './console-browser';
 
 const SCENARIO = UPLAND_DEMO.title;
 
@@ -16,22 +21,11 @@ async function openScenario(page: Page): Promise<void> {
 }
 
 describe('console: an analyst edits a scenario, compares versions and runs every analysis', () => {
-  let served: ServedApp;
-  let browser: Browser;
-
-  beforeAll(async () => {
-    served = await serveForBrowser();
-    browser = await chromium.launch({ executablePath: ensureChromium(), args: CHROMIUM_ARGS });
-  });
-
-  afterAll(async () => {
-    await browser?.close();
-    await served?.stop();
-  });
+  const { served, browser } = servedConsole();
 
   it('edits with the parameter form: problems beside their fields, then a new version', async () => {
-    const { page, outside } = await consoleContext(browser);
-    await signIn(page, served.base, DEMO.analyst);
+    const { page, outside } = await consoleContext(browser());
+    await signIn(page, served().base, DEMO.analyst);
     await openScenario(page);
     await page.getByRole('link', { name: /^Edit version 1/ }).click();
     await page.getByRole('heading', { level: 1, name: `Edit ${SCENARIO}` }).waitFor();
@@ -110,8 +104,8 @@ describe('console: an analyst edits a scenario, compares versions and runs every
   });
 
   it('runs the projection, regime, sweep, ensemble and comparison with the widgets', async () => {
-    const { page, outside } = await consoleContext(browser);
-    await signIn(page, served.base, DEMO.analyst);
+    const { page, outside } = await consoleContext(browser());
+    await signIn(page, served().base, DEMO.analyst);
     await openScenario(page);
     const analyses = page.locator('tc-scenario-analyses');
     await analyses.waitFor();
@@ -159,7 +153,10 @@ describe('console: an analyst edits a scenario, compares versions and runs every
     // The work was charged to the analyst's own meter on the usage page.
     await openFromNav(page, 'Usage and quota');
     await page.getByRole('heading', { name: 'Where the units went' }).waitFor();
-    await page.getByText(/Priya Calder/).first().waitFor();
+    await page
+      .getByText(/Priya Calder/)
+      .first()
+      .waitFor();
     await checkpoint(page, 'analyses-05-usage');
     expect(outside).toEqual([]);
   });
