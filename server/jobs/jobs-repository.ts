@@ -135,9 +135,28 @@ export class JobsRepository {
     return n > 0;
   }
 
-  /** Records progress (and that the process running it is alive). */
-  async progress(id: string, progress: number, at: string): Promise<void> {
-    await this.db('jobs').where({ id, status: 'running' }).update({ progress, heartbeat_at: at });
+  /**
+   * Records running jobs' progress (and that the process running them is alive), all in one
+   * transaction: one commit, so one wait for the disk, however many jobs run.
+   */
+  async progressMany(
+    updates: readonly { readonly id: string; readonly progress: number }[],
+    at: string,
+  ): Promise<void> {
+    await this.db.transaction(async (trx) => {
+      for (const { id, progress } of updates) {
+        await trx('jobs').where({ id, status: 'running' }).update({ progress, heartbeat_at: at });
+      }
+    });
+  }
+
+  /** Which of these jobs someone asked to cancel (read by the process running them). */
+  async cancelRequested(ids: readonly string[]): Promise<string[]> {
+    const rows = await this.db('jobs')
+      .select('id')
+      .whereIn('id', ids)
+      .where({ cancel_requested: true });
+    return rows.map((r: { id: string }) => r.id);
   }
 
   /** Keeps a process's jobs from being taken for abandoned. */

@@ -12,6 +12,9 @@ import { JOB_RETENTION_MS, JOB_STALE_MS, type JobKind } from './job-kind';
 import { CANCELLED_PROBLEM, INTERRUPTED_PROBLEM, jobView, type JobView } from './job-view';
 import { isUniqueViolation, JobsRepository, type JobRecord } from './jobs-repository';
 
+/** How often running jobs' progress is written (and cancellations from other processes seen). */
+const PROGRESS_FLUSH_MS = 200;
+
 /** Bounds on the job machinery. */
 export interface JobsOptions {
   /**
@@ -53,6 +56,12 @@ export class JobsService {
   private readonly queue: Queued[] = [];
   private readonly running = new Map<string, AbortController>();
   private readonly kinds = new Map<string, JobKind>();
+  /** Running jobs' progress not yet written, by job id; written together every tick. */
+  private readonly progressDue = new Map<
+    string,
+    { item: Queued; progress: number; controller: AbortController }
+  >();
+  private progressTimer: NodeJS.Timeout | undefined;
   /** When each tenant last had a job started (a counter), for taking turns from the queue. */
   private readonly lastTurn = new Map<string, number>();
   private turns = 0;
@@ -288,19 +297,13 @@ export class JobsService {
     const { id } = item.record;
     const controller = new AbortController();
     this.running.set(id, controller);
-    let lastWrite = 0;
     try {
       if (!(await this.repo.start(id, this.iso()))) return; // cancelled while queued
       await this.emit(item.record);
       const result = await item.kind.run(item.request, {
         owner: item.record.tenantId,
         signal: controller.signal,
-        onProgress: (fraction) => {
-          const t = this.now();
-          if (t - lastWrite < 200 && fraction < 1) return; // at most 5 writes a second
-          lastWrite = t;
-          void this.reportProgress(item, fraction, controller);
-        },
+        onProgress: (fraction) => this.queueProgress(item, fraction, controller),
       });
       if (controller.signal.aborted) throw controller.signal.reason;
       await this.end(item.record, { status: 'succeeded', result });
@@ -327,16 +330,44 @@ export class JobsService {
       }
     } finally {
       this.running.delete(id);
+      this.progressDue.delete(id);
       this.pump();
     }
   }
 
-  private async reportProgress(item: Queued, fraction: number, controller: AbortController) {
-    const id = item.record.id;
-    await this.repo.progress(id, Math.min(1, Math.max(0, fraction)), this.iso());
-    const row = await this.repo.find(item.record.tenantId, id);
-    if (row?.cancelRequested) controller.abort();
-    else if (row) this.events.emit(id, jobView(row));
+  /** Notes a running job's progress for the next {@link flushProgress}. */
+  private queueProgress(item: Queued, fraction: number, controller: AbortController): void {
+    const progress = Math.min(1, Math.max(0, fraction));
+    this.progressDue.set(item.record.id, { item, progress, controller });
+    this.progressTimer ??= setTimeout(() => void this.flushProgress(), PROGRESS_FLUSH_MS);
+  }
+
+  /**
+   * Writes every running job's latest progress in one transaction, then aborts the jobs whose
+   * cancellation another process requested and tells stream listeners. One commit per tick for
+   * all jobs, not one per job: each commit waits for the disk (`synchronous = FULL`) on the
+   * request thread, and progress needs no such care (a lost value is rewritten at the next tick).
+   */
+  private async flushProgress(): Promise<void> {
+    this.progressTimer = undefined;
+    const due = [...this.progressDue.values()];
+    this.progressDue.clear();
+    if (!due.length || this.closed) return;
+    try {
+      const ids = due.map((d) => d.item.record.id);
+      await this.repo.progressMany(
+        due.map((d) => ({ id: d.item.record.id, progress: d.progress })),
+        this.iso(),
+      );
+      const cancelled = new Set(await this.repo.cancelRequested(ids));
+      for (const d of due) {
+        const id = d.item.record.id;
+        if (cancelled.has(id)) d.controller.abort();
+        else await this.emit(d.item.record);
+      }
+    } catch {
+      // Progress is advisory: the next report writes it again; the job's end is what counts.
+    }
   }
 
   private async housekeeping(): Promise<void> {
@@ -363,6 +394,7 @@ export class JobsService {
   async close(): Promise<void> {
     this.closed = true;
     if (this.timer) clearInterval(this.timer);
+    if (this.progressTimer) clearTimeout(this.progressTimer);
     for (const q of this.queue.splice(0)) {
       await this.end(q.record, { status: 'failed', error: INTERRUPTED_PROBLEM }).catch(
         () => undefined,

@@ -33,6 +33,7 @@ const publish = { via: 'either', scope: 'scenarios:write', action: 'scenarios:pu
 const dataRead = { via: 'either', scope: 'scenarios:read', action: 'data:read' } as const;
 const dataWrite = { via: 'either', scope: 'scenarios:write', action: 'data:write' } as const;
 const open = { via: 'public' } as const;
+const run = { via: 'either', scope: 'scenarios:write', action: 'analyses:run' } as const;
 const memberCompute = { via: 'session', action: 'analyses:run' } as const;
 
 /** `method template` → access. */
@@ -113,12 +114,10 @@ export const ROUTE_ACCESS: Readonly<Record<string, Access>> = {
   'post /scenarios/{id}/datasets': dataWrite,
   'get /scenarios/{id}/datasets/{version}': dataRead,
   'get /scenarios/{id}/datasets/{version}/csv': dataRead,
-  'post /scenarios/{id}/calibrations': {
-    via: 'either',
-    scope: 'scenarios:write',
-    action: 'analyses:run',
-  },
+  'post /scenarios/{id}/calibrations': run,
   'get /calibrations/{id}': read,
+  'delete /calibrations/{id}': run,
+  'get /calibrations/{id}/events': run,
   'post /calibrations/{id}/versions': write,
 };
 
