@@ -110,6 +110,13 @@ export async function seed(knex: Knex): Promise<void> {
       tenant_id: DEMO_TENANT.id,
       scenario_id: demo.id,
       version: 1,
+      scenario_version: 1,
+      levels: JSON.stringify(
+        Object.keys(parsed.series.levels).map((id) => ({
+          id,
+          unit: content.value.model.levels.find((l) => l.id === id)!.unit,
+        })),
+      ),
       filename: `${demo.publicId}-synthetic.csv`,
       original: csv,
       series: JSON.stringify(parsed.series),

@@ -1,4 +1,4 @@
-import { MessageChannel } from 'node:worker_threads';
+import { MessageChannel, type Worker } from 'node:worker_threads';
 import { Piscina } from 'piscina';
 import {
   ModelValidationError,
@@ -40,6 +40,11 @@ export class CalibrationPool {
     } finally {
       port1.close();
     }
+  }
+
+  /** The worker threads alive now (none before first use, or once an aborted task's ended). */
+  get workers(): readonly Worker[] {
+    return this.pool?.threads ?? [];
   }
 
   /** Stops the threads. */

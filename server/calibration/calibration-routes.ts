@@ -1,13 +1,13 @@
-import { createHash } from 'node:crypto';
 import { Router, type Request } from 'express';
 import type { Knex } from 'knex';
-import { validateCalibrationRequest, type ChainModel } from '@tropline/core';
+import { validateCalibrationRequest, type ChainModel, type ValidationIssue } from '@tropline/core';
 import type { KeyPrincipal } from '../auth/key-principal';
 import { ProblemError, validationProblem } from '../http/problem';
+import { isFinished, streamJobEvents } from '../jobs/job-events';
 import type { JobsService } from '../jobs/jobs-service';
 import { CACHE_HEADER } from '../projections/sync-compute';
-import { DEFAULT_PLAN, QuotasRepository } from '../quotas/quotas-repository';
-import type { DatasetsService } from '../datasets/datasets-service';
+import { memberPrincipal } from '../quotas/member-principal';
+import { datasetMismatch, type DatasetsService } from '../datasets/datasets-service';
 import { actorOf, type Actor, type ScenarioGuard } from '../scenarios/scenario-access';
 import type { ScenariosService } from '../scenarios/scenarios-service';
 import type { CalibrationJobBody, CalibrationSource } from './calibration-kind';
@@ -15,30 +15,37 @@ import type { CalibrationJobBody, CalibrationSource } from './calibration-kind';
 const FIT_FIELDS = ['parameters', 'initialStates', 'starts', 'maxIterations', 'segmentLength'];
 
 /**
- * The principal a job is admitted under: the calling key, or for a signed-in member a
- * per-user meter (`u-` + 14 hex of the user id, the key column's width) on the tenant's plan,
- * so console calibrations draw on the same monthly units as keyed ones.
+ * The principal a job is admitted under: the calling key, or for a signed-in member their own
+ * meter on the tenant's plan, so console calibrations draw on the same monthly units.
  */
 async function principalFor(db: Knex, actor: Actor): Promise<KeyPrincipal> {
-  if (actor.principal) return actor.principal;
-  const plan = (await new QuotasRepository(db).getPlan(actor.tenantId)) ?? DEFAULT_PLAN;
-  const meter = 'u-' + createHash('sha256').update(actor.userId!).digest('hex').slice(0, 14);
-  return {
-    keyId: meter,
-    kind: 'server',
-    tenantId: actor.tenantId,
-    tenantSlug: '',
-    scopes: [],
-    publishedOnly: false,
-    monthlyUnits: plan.monthlyUnits,
-    perMinute: plan.perMinute,
-  };
+  return actor.principal ?? memberPrincipal(db, actor.tenantId, actor.userId!);
+}
+
+/**
+ * The engine checks the assembled request, whose observations come from the dataset and whose
+ * model and start come from the scenario version: point its complaints at the body's fields.
+ */
+function bodyPointer(issue: ValidationIssue): ValidationIssue {
+  const [, head] = issue.pointer.split('/');
+  if (head === 'observations') {
+    return { pointer: '/dataset', message: `the dataset's ${issue.pointer}: ${issue.message}` };
+  }
+  if (head === 'model' || head === 'initial') {
+    return {
+      pointer: '/scenarioVersion',
+      message: `the scenario version's ${issue.pointer}: ${issue.message}`,
+    };
+  }
+  return issue;
 }
 
 /**
  * `POST /scenarios/{id}/calibrations` (a job fitting a scenario version to a dataset version),
- * `GET /calibrations/{id}` (the job, for keys and sessions alike) and
- * `POST /calibrations/{id}/versions` (save the fitted model as a new scenario version).
+ * `GET /calibrations/{id}` (the job, for keys and sessions alike), its progress as Server-Sent
+ * Events (`…/events`, the format of `/jobs/{id}/events`), `DELETE /calibrations/{id}` (cancel)
+ * and `POST /calibrations/{id}/versions` (save the fitted model as a new scenario version).
+ * Another tenant's job, or a job of another kind, is a 404.
  */
 export function calibrationRoutes(
   db: Knex,
@@ -70,22 +77,44 @@ export function calibrationRoutes(
     const actor = actorOf(req);
     const body = (req.body ?? {}) as Record<string, unknown>;
     const s = await scenarios.require(actor, String(req.params.id));
-    const errors = [];
-    if (!Number.isSafeInteger(body.dataset)) {
+    const errors: ValidationIssue[] = [];
+    const isVersion = (v: unknown) => Number.isSafeInteger(v) && (v as number) >= 1;
+    if (!isVersion(body.dataset)) {
       errors.push({
         pointer: '/dataset',
-        message: 'dataset is required: a dataset version number',
+        message: 'dataset is required: a dataset version number (1, 2, …)',
       });
+    }
+    if (body.scenarioVersion !== undefined && !isVersion(body.scenarioVersion)) {
+      errors.push({ pointer: '/scenarioVersion', message: 'a version number (1, 2, …)' });
     }
     const unknown = Object.keys(body).filter(
       (k) => !['dataset', 'scenarioVersion', ...FIT_FIELDS].includes(k),
     );
     for (const k of unknown) errors.push({ pointer: `/${k}`, message: `unknown field "${k}"` });
     if (errors.length) throw validationProblem(errors);
-    const version =
-      body.scenarioVersion === undefined ? s.latestVersion : Number(body.scenarioVersion);
-    const base = await scenarios.requireVersion(actor, s.id, version);
-    const data = await datasets.get(actor, s.id, Number(body.dataset));
+    const version = (body.scenarioVersion as number | undefined) ?? s.latestVersion;
+    const base = await scenarios.repository.version(s.id, version);
+    if (!base) {
+      throw validationProblem([
+        {
+          pointer: '/scenarioVersion',
+          message: `no version ${version}; the latest is ${s.latestVersion}`,
+        },
+      ]);
+    }
+    const found = await datasets.repository.find(s.id, body.dataset as number);
+    if (!found) {
+      throw validationProblem([
+        {
+          pointer: '/dataset',
+          message: `the scenario has no dataset version ${String(body.dataset)}`,
+        },
+      ]);
+    }
+    const data = await datasets.get(actor, s.id, found.meta.version);
+    const mismatch = datasetMismatch(data, base.content.model, version);
+    if (mismatch.length) throw validationProblem(mismatch);
     const calibration = {
       model: base.content.model,
       initial: base.content.initial,
@@ -93,7 +122,7 @@ export function calibrationRoutes(
       ...Object.fromEntries(FIT_FIELDS.filter((k) => k in body).map((k) => [k, body[k]])),
     };
     const checked = validateCalibrationRequest(calibration);
-    if (!checked.ok) throw validationProblem([...checked.errors]);
+    if (!checked.ok) throw validationProblem(checked.errors.map(bodyPointer));
     const source: CalibrationSource = {
       scenarioId: s.id,
       scenarioVersion: version,
@@ -118,6 +147,18 @@ export function calibrationRoutes(
 
   router.get('/calibrations/:id', read, async (req, res) => {
     res.set('Cache-Control', 'no-store').json(await calibrationJob(req));
+  });
+
+  // Following and cancelling a calibration: whoever may start one (analyses:run for members).
+  router.get('/calibrations/:id/events', run, async (req, res) => {
+    const job = await calibrationJob(req); // 404 before the stream starts
+    streamJobEvents(jobs, await principalFor(db, actorOf(req)), job, req, res);
+  });
+
+  router.delete('/calibrations/:id', run, async (req, res) => {
+    const found = await calibrationJob(req);
+    const job = await jobs.cancel(await principalFor(db, actorOf(req)), found.id);
+    res.status(isFinished(job) ? 200 : 202).json(job);
   });
 
   router.post('/calibrations/:id/versions', write, async (req, res) => {

@@ -1,12 +1,22 @@
 import type { Knex } from 'knex';
 import type { SurveySeries } from './survey-csv';
 
+/** One level column of a dataset: its id and unit as the dataset's scenario version had them. */
+export interface DatasetLevel {
+  readonly id: string;
+  readonly unit: string;
+}
+
 /** One stored dataset version: the upload as sent and its parsed series. */
 export interface DatasetRecord {
   readonly id: string;
   readonly tenantId: string;
   readonly scenarioId: string;
   readonly version: number;
+  /** The scenario version the file was made for (its header checked against). */
+  readonly scenarioVersion: number;
+  /** Its level columns with their units; null for uploads stored before this was recorded. */
+  readonly levels: DatasetLevel[] | null;
   readonly filename: string;
   readonly rows: number;
   readonly sha256: string;
@@ -21,6 +31,8 @@ function record(r: Record<string, unknown>): DatasetRecord {
     tenantId: r.tenant_id as string,
     scenarioId: r.scenario_id as string,
     version: Number(r.version),
+    scenarioVersion: Number(r.scenario_version ?? 1),
+    levels: typeof r.levels === 'string' ? (JSON.parse(r.levels) as DatasetLevel[]) : null,
     filename: r.filename as string,
     rows: Number(r.rows),
     sha256: r.sha256 as string,
@@ -35,6 +47,8 @@ const META = [
   'tenant_id',
   'scenario_id',
   'version',
+  'scenario_version',
+  'levels',
   'filename',
   'rows',
   'sha256',
@@ -64,6 +78,8 @@ export class DatasetsRepository {
         tenant_id: meta.tenantId,
         scenario_id: meta.scenarioId,
         version,
+        scenario_version: meta.scenarioVersion,
+        levels: JSON.stringify(meta.levels),
         filename: meta.filename,
         original,
         series: JSON.stringify(series),

@@ -42,8 +42,9 @@ function receiveFile(maxBytes: number): RequestHandler {
 }
 
 /**
- * `POST /scenarios/{id}/datasets` (multipart: `file`, optional `changeNote`), the list, one
- * version's parsed series, and `…/csv` to download the upload unchanged.
+ * `POST /scenarios/{id}/datasets` (multipart: `file`, optional `changeNote`, optional
+ * `scenarioVersion` the file is made for, default the latest), the list, one version's parsed
+ * series, and `…/csv` to download the upload unchanged.
  */
 export function datasetsRoutes(
   service: DatasetsService,
@@ -62,13 +63,21 @@ export function datasetsRoutes(
       ]);
     }
     const note = typeof req.body?.changeNote === 'string' ? req.body.changeNote.trim() : '';
-    const stored = await service.upload(
-      actorOf(req),
-      id(req),
-      req.file.buffer,
-      req.file.originalname || 'survey.csv',
-      note || 'Survey upload',
-    );
+    const raw = req.body?.scenarioVersion as unknown;
+    if (raw !== undefined && (typeof raw !== 'string' || !/^[1-9][0-9]{0,8}$/.test(raw))) {
+      throw validationProblem([
+        {
+          pointer: '/scenarioVersion',
+          message: `scenarioVersion must be a version number (1, 2, …), not "${String(raw)}"`,
+        },
+      ]);
+    }
+    const stored = await service.upload(actorOf(req), id(req), {
+      file: req.file.buffer,
+      filename: req.file.originalname || 'survey.csv',
+      note: note || 'Survey upload',
+      ...(raw === undefined ? {} : { scenarioVersion: Number(raw) }),
+    });
     res
       .status(201)
       .location(`/api/v1/scenarios/${id(req)}/datasets/${stored.version}`)

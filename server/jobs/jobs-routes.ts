@@ -4,11 +4,8 @@ import type { KeyGuard } from '../auth/require-key';
 import { ProblemError } from '../http/problem';
 import type { QuotasService } from '../quotas/quotas-service';
 import { CACHE_HEADER } from '../projections/sync-compute';
-import type { JobView } from './job-view';
+import { isFinished, streamJobEvents } from './job-events';
 import type { JobsService } from './jobs-service';
-
-/** Longest a progress stream stays open; a client reconnects for more. */
-export const STREAM_MAX_MS = 10 * 60_000;
 
 const IDEMPOTENCY_KEY = /^[\x21-\x7e]{1,200}$/;
 
@@ -40,8 +37,6 @@ export function createJobHandler(jobs: JobsService, kind: string): RequestHandle
   };
 }
 
-const FINISHED = new Set<JobView['status']>(['succeeded', 'failed']);
-
 /**
  * `GET /jobs/{id}`, `DELETE /jobs/{id}` and `GET /jobs/{id}/events` (Server-Sent Events: one
  * `job` event per change, the last when it finishes). Another tenant's job is a 404.
@@ -58,46 +53,13 @@ export function jobsRoutes(jobs: JobsService, quotas: QuotasService, requireKey:
 
   router.delete('/jobs/:id', ...guard, async (req, res) => {
     const job = await jobs.cancel(principalOf(req), String(req.params.id));
-    res.status(FINISHED.has(job.status) ? 200 : 202).json(job);
+    res.status(isFinished(job) ? 200 : 202).json(job);
   });
 
   router.get('/jobs/:id/events', ...guard, async (req, res) => {
     const principal = principalOf(req);
-    const id = String(req.params.id);
-    let last = await jobs.get(principal, id); // 404 before the stream starts
-    res.status(200).set({
-      'Content-Type': 'text/event-stream; charset=utf-8',
-      'Cache-Control': 'no-store',
-      'X-Accel-Buffering': 'no',
-    });
-    res.flushHeaders();
-    let seq = 0;
-    const send = (job: JobView) => {
-      last = job;
-      res.write(`id: ${++seq}\nevent: job\ndata: ${JSON.stringify(job)}\n\n`);
-      if (FINISHED.has(job.status)) stop();
-    };
-    // Jobs run by another process reach us through the database, once a second.
-    const poll = setInterval(() => {
-      jobs.refresh(principal, id).then((job) => {
-        if (job && (job.status !== last.status || job.progress !== last.progress)) send(job);
-      }, stop);
-    }, 1000);
-    const keepAlive = setInterval(() => res.write(': keep-alive\n\n'), 15_000);
-    const limit = setTimeout(() => stop(), STREAM_MAX_MS);
-    const unsubscribe = jobs.subscribe(id, send);
-    let stopped = false;
-    function stop() {
-      if (stopped) return;
-      stopped = true;
-      clearInterval(poll);
-      clearInterval(keepAlive);
-      clearTimeout(limit);
-      unsubscribe();
-      res.end();
-    }
-    req.on('close', stop);
-    send(last);
+    // 404 before the stream starts.
+    streamJobEvents(jobs, principal, await jobs.get(principal, String(req.params.id)), req, res);
   });
   return router;
 }

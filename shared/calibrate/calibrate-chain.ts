@@ -125,11 +125,19 @@ export function calibrateChain(
     let found: Descent | undefined;
     let iterations = 0;
     for (let pass = 0; pass < passes; pass++) {
+      // Of each segmented pass, the starts alone count for a third of the work.
+      const report = (f: number) =>
+        options.onProgress?.((s + (pass + f) / passes) / (starts.length + 0.2));
+      const share = layout.segmented ? 1 / 3 : 0;
       // Segmented: the starts alone first, then everything; the second pass begins its starts
       // from parameters near the optimum, where the carried states are close to the truth.
-      if (layout.segmented) u = segmentFirstStarts(problem, u, req.maxIterations, checkAbort);
+      if (layout.segmented) {
+        u = segmentFirstStarts(problem, u, req.maxIterations, checkAbort, (w, of) =>
+          report((share * w) / of),
+        );
+      }
       found = descent.descend(u, req.maxIterations, (k) =>
-        options.onProgress?.((s + (pass + k / req.maxIterations) / passes) / (starts.length + 0.2)),
+        report(share + ((1 - share) * k) / req.maxIterations),
       );
       u = found.u;
       iterations += found.iterations;

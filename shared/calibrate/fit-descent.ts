@@ -147,6 +147,7 @@ export function segmentFirstStarts(
   u: readonly number[],
   maxIterations: number,
   checkAbort: () => void,
+  onSegment?: (done: number, of: number) => void,
 ): number[] {
   const { coords, layout } = problem;
   let current = [...u];
@@ -173,6 +174,7 @@ export function segmentFirstStarts(
       if (!best || found.ss < best.ss) best = found;
     }
     current = best!.u;
+    onSegment?.(window + 1, layout.windows.length);
   });
   return current;
 }
