@@ -16,8 +16,14 @@ import {
 } from './console-browser';
 
 /** Tabs to a control, checks its focus is visible, and presses a key on it. */
-async function press(page: Page, name: string | RegExp, key = 'Enter'): Promise<void> {
-  await tabTo(page, name);
+async function press(
+  page: Page,
+  name: string | RegExp,
+  how: 'Enter' | 'Space' | { back: true } = 'Enter',
+): Promise<void> {
+  const back = typeof how === 'object';
+  const key = back ? 'Enter' : how;
+  await tabTo(page, name, { back });
   await expectFocusVisible(page, String(name));
   await page.keyboard.press(key);
 }
@@ -118,6 +124,18 @@ describe('console by keyboard alone: every dialog and form, focus kept and retur
       .poll(() => focusedName(page))
       .toBe('Cancel the invitation for ines.holloway@larchmere.example');
     await checkpoint(page, 'keyboard-04-invited');
+
+    // Signing out on every device is asked first; Escape keeps everyone signed in.
+    await press(page, 'Tobias Fenwright (Admin)', { back: true });
+    await page.getByRole('menu').waitFor();
+    await page.keyboard.press('ArrowDown');
+    await page.keyboard.press('Enter');
+    await page.getByRole('dialog', { name: 'Sign out on every device?' }).waitFor();
+    await expect.poll(() => focusedName(page)).toBe('Cancel');
+    await page.keyboard.press('Escape');
+    await dialogClosed(page);
+    await page.getByRole('heading', { level: 1, name: 'Members' }).waitFor();
+    expect(await page.evaluate(async () => (await fetch('/api/v1/session')).status)).toBe(200);
     expect(outside).toEqual([]);
   });
 

@@ -1,10 +1,13 @@
 import { ChangeDetectionStrategy, Component, computed, effect, inject } from '@angular/core';
 import { MatButton } from '@angular/material/button';
+import { MatDialog } from '@angular/material/dialog';
 import { MatIcon } from '@angular/material/icon';
 import { MatListModule } from '@angular/material/list';
 import { MatMenuModule } from '@angular/material/menu';
 import { MatToolbar } from '@angular/material/toolbar';
 import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { firstValueFrom } from 'rxjs';
+import { ConfirmDialog, type ConfirmData } from './common/confirm-dialog';
 import { ConsoleSession } from './session/console-session';
 import { DevMailboxProbe } from './session/dev-mailbox-probe';
 import { navFor, ROLE_LABELS } from './shell/console-nav';
@@ -29,6 +32,7 @@ import { navFor, ROLE_LABELS } from './shell/console-nav';
 export class App {
   private readonly router = inject(Router);
   private readonly mailbox = inject(DevMailboxProbe);
+  private readonly dialog = inject(MatDialog);
   protected readonly session = inject(ConsoleSession);
 
   protected readonly nav = computed(() => navFor(this.session.role(), this.mailbox.available()));
@@ -54,6 +58,18 @@ export class App {
   }
 
   protected async signOut(everywhere: boolean): Promise<void> {
+    if (everywhere) {
+      const ref = this.dialog.open<ConfirmDialog, ConfirmData, boolean>(ConfirmDialog, {
+        data: {
+          title: 'Sign out on every device?',
+          message:
+            'Every browser signed in as you, here and on other devices, is signed out at once ' +
+            'and must sign in again.',
+          confirm: 'Sign out on every device',
+        },
+      });
+      if (!(await firstValueFrom(ref.afterClosed()))) return;
+    }
     await (everywhere ? this.session.signOutEverywhere() : this.session.signOut());
     await this.router.navigate(['/sign-in'], { queryParams: { out: everywhere ? 'all' : 1 } });
   }

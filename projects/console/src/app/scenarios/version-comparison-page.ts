@@ -9,6 +9,7 @@ import {
   signal,
   untracked,
 } from '@angular/core';
+import { MatButton } from '@angular/material/button';
 import { MatCheckbox } from '@angular/material/checkbox';
 import { MatFormField, MatLabel } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
@@ -57,6 +58,7 @@ async function loadComparison(
   imports: [
     DatePipe,
     RouterLink,
+    MatButton,
     MatCheckbox,
     MatFormField,
     MatInput,
