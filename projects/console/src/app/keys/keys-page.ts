@@ -14,6 +14,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIcon } from '@angular/material/icon';
 import { MatInput } from '@angular/material/input';
 import { MatPaginator, type PageEvent } from '@angular/material/paginator';
+import { MatProgressBar } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSortModule, type Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
@@ -45,6 +46,7 @@ import { RotateKeyDialog } from './rotate-key-dialog';
 @Component({
   selector: 'tc-keys-page',
   imports: [
+    MatProgressBar,
     DatePipe,
     MatButton,
     MatIconButton,
@@ -77,6 +79,8 @@ export class KeysPage {
   protected readonly page = signal({ index: 0, size: 10 });
   protected readonly actionProblem = signal<ProblemText | undefined>(undefined);
   protected readonly announcement = signal('');
+  /** Whether a revocation is on its way to the server. */
+  protected readonly revoking = signal(false);
   protected readonly canManage = computed(() => this.session.can('keys:manage'));
   protected readonly columns = computed(() => [
     'name',
@@ -148,12 +152,15 @@ export class KeysPage {
     });
     if (!(await firstValueFrom(ref.afterClosed()))) return;
     this.actionProblem.set(undefined);
+    this.revoking.set(true);
     try {
       await this.api.revoke(key.id);
       this.announcement.set(`Key “${key.name || key.label}” revoked.`);
       await this.data.load();
     } catch (err) {
       this.actionProblem.set(problemText(err, 'revoke the key'));
+    } finally {
+      this.revoking.set(false);
     }
   }
 

@@ -11,6 +11,7 @@ import {
 import { MatButton } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatProgressBar } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 import type { TenantRole } from '@tropline/core';
@@ -30,6 +31,7 @@ import { MembersApi } from './members-api';
 @Component({
   selector: 'tc-members-page',
   imports: [
+    MatProgressBar,
     DatePipe,
     MatButton,
     MatFormFieldModule,
@@ -64,6 +66,8 @@ export class MembersPage {
   );
   protected readonly problem = signal<ProblemText | undefined>(undefined);
   protected readonly announcement = signal('');
+  /** What is being done right now (a role change, a removal), for the progress bar. */
+  protected readonly working = signal('');
 
   constructor() {
     effect(() => {
@@ -99,11 +103,13 @@ export class MembersPage {
 
   private async act(doing: string, work: () => Promise<void>): Promise<void> {
     this.problem.set(undefined);
+    this.working.set(`Working: ${doing}…`);
     try {
       await work();
     } catch (err) {
       this.problem.set(problemText(err, doing));
     }
     await this.data.load();
+    this.working.set('');
   }
 }
