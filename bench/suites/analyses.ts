@@ -10,7 +10,7 @@ import {
 import { validateEnsembleRequest } from '../../shared/analyses-contract/ensemble-contract';
 import { runSweepRange, sweepValues, sweepWork } from '../../shared/sweep/run-sweep';
 import { createAnalysisPool } from '../../shared/pool/analysis-pool';
-import { chunkCount } from '../../shared/pool/plan-chunks';
+import { chunkCount, planChunks } from '../../shared/pool/plan-chunks';
 import { WORKER_NICENESS } from '../../shared/pool/thread-priority';
 import { benchmarkChain, BENCHMARK_INITIAL } from '../../tests/reference/analyses-benchmark-chain';
 
@@ -41,7 +41,15 @@ export async function run(): Promise<void> {
   // The machine's cores are shared: parallel speed-up only shows when they are free.
   console.log(`  load average at start: ${loadavg()[0]!.toFixed(2)} on 2 cores`);
   const odex = time(() => odexSweep(sweep));
-  const inProcess = time(() => runSweepRange(sweep, 0, sweep.steps));
+  // Value by value, so the steps each value takes are known (the same work as one range).
+  const perValue = time(() =>
+    Array.from({ length: sweep.steps }, (_, i) => runSweepRange(sweep, i, i + 1)),
+  );
+  const inProcess = {
+    seconds: perValue.seconds,
+    value: { points: perValue.value.flatMap((r) => r.points) },
+  };
+  const stepsPerValue = perValue.value.map((r) => r.steps);
   // The server's workers run at nice 10; here they stay at 0, so on a shared machine the bench
   // measures the pool rather than what other work leaves a reniced thread (on free cores the
   // two are the same).
@@ -65,6 +73,15 @@ export async function run(): Promise<void> {
     report('pool, 1 worker', onPool[0]!, odex.seconds);
     report('pool, 2 workers', onPool[1]!, odex.seconds);
     console.log(`  parallel speed-up 1 -> 2 workers: ${(onPool[0]! / onPool[1]!).toFixed(2)}x`);
+    // What the split alone allows, from each value's integrator steps (independent of load).
+    const bound = (chunks: number[][]) => stepBound(stepsPerValue, chunks, 2);
+    const parts = chunkCount(sweep.steps, sweepWork(sweep), 2, 4);
+    console.log(
+      `  speed-up the split allows on 2 workers, by steps per value (${Math.min(...stepsPerValue)}` +
+        `–${Math.max(...stepsPerValue)}): ${parts} interleaved chunks ` +
+        `${bound(planChunks(sweep.steps, parts)).toFixed(2)}x, ${parts} contiguous ranges ` +
+        `${bound(contiguous(sweep.steps, parts)).toFixed(2)}x`,
+    );
     // Chunk size: fewer chunks cost less messaging, more balance the dear values better.
     const byChunks: string[] = [];
     for (const perWorker of [1, 16]) {
@@ -210,6 +227,29 @@ function regimeRanges(points: Points): string {
     }
   }
   return runs.join(', ');
+}
+
+/** `parts` contiguous ranges of near-equal length, the pool's split before interleaving. */
+function contiguous(total: number, parts: number): number[][] {
+  return Array.from({ length: parts }, (_, c) =>
+    Array.from(
+      { length: Math.floor(((c + 1) * total) / parts) - Math.floor((c * total) / parts) },
+      (_, k) => Math.floor((c * total) / parts) + k,
+    ),
+  );
+}
+
+/**
+ * Speed-up over one worker when chunks, costed by their items' steps, go in order to whichever
+ * of `workers` is free first (the scheduler's rule): total steps over the busiest worker's.
+ */
+function stepBound(steps: number[], chunks: number[][], workers: number): number {
+  const busy = new Array<number>(workers).fill(0);
+  for (const c of chunks) {
+    const w = busy.indexOf(Math.min(...busy));
+    busy[w]! += c.reduce((a, i) => a + steps[i]!, 0);
+  }
+  return steps.reduce((a, b) => a + b, 0) / Math.max(...busy);
 }
 
 /** Nice value of the bench's workers (see `run`). */
