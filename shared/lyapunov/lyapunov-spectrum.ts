@@ -39,12 +39,15 @@ export interface LyapunovResult {
  * (a QR factorisation) and the logarithms of the diagonal of R are summed per exponent. The
  * standard error comes from batch means over `batches` equal sub-windows (common practice for
  * correlated time averages). The divergence trace J is integrated alongside, so that the sum of
- * the full spectrum can be checked against it (Liouville's formula).
+ * the full spectrum can be checked against it (Liouville's formula). `onWindowStep` sees every
+ * accepted step of the window (times from 0 at the window's start; the first n components of
+ * the step's state are the levels), for evidence the result does not hold (a level's trend).
  */
 export function lyapunovSpectrum(
   kernel: ChainKernel,
   y0: Float64Array,
   options: LyapunovOptions,
+  onWindowStep?: (step: Dop853) => void,
 ): LyapunovResult {
   const n = kernel.dimension;
   const o = validateLyapunovOptions(options, n);
@@ -113,6 +116,7 @@ export function lyapunovSpectrum(
       if (v > maximum[i]!) maximum[i] = v;
     }
     maxima.observe(step);
+    onWindowStep?.(step);
   };
 
   const stepper = new Dop853(size);

@@ -4,7 +4,8 @@ import { compileChain } from '../model/chain-kernel';
 import { initialVector } from '../model/initial-vector';
 import { withParameter } from '../model/parameter-pointer';
 import { assessRegime } from './assess-regime';
-import { predictabilityHorizon } from './classify-regime';
+import { DYING_OUT_NOTE, predictabilityHorizon } from './classify-regime';
+import { LevelTrend } from './level-trend';
 import { lyapunovSpectrum } from '../lyapunov/lyapunov-spectrum';
 import { findEquilibria } from '../equilibria/find-equilibria';
 import { benchmarkChain, BENCHMARK_INITIAL } from '../../tests/reference/analyses-benchmark-chain';
@@ -118,6 +119,57 @@ describe('regimes of the Hastings & Powell (1991) chain', () => {
     const r = assessRegime(model, BENCHMARK_INITIAL, { transient: 2000, window: 1000 });
     expect(r.regime).toBe('collapse');
     expect(r.collapsedLevels).toEqual(['fish']);
+  });
+
+  // At b1 = 1 the predator-free equilibrium (x*, y*, 0) of the chain is x* = d1/(a1 − b1·d1),
+  // y* = (1 − x*)(1 + b1·x*)/a1 (zeros of the first two equations) and attracts within z = 0
+  // (b1 = 1 puts the prey isocline's hump at x = (1 − 1/b1)/2 = 0, left of x*: no Hopf point;
+  // Rosenzweig 1971). The Jacobian's z row there is (0, 0, a2·y*/(1 + b2·y*) − d2), so that
+  // entry is the top level's invasion rate: negative, z → 0 like e^{λt} (common practice:
+  // the invasion condition of the boundary equilibrium). d2 = 0.0172 makes it −0.00299 and the
+  // fish falls only to ~0.01 in the window, far above its 1e-6 threshold: it must still be
+  // reported as collapsing, not as an equilibrium of the levels left or as chaos.
+  const [a1, b1, d1, a2, b2] = [5, 1, 0.4, 0.1, 2];
+  const xStar = d1 / (a1 - b1 * d1);
+  const yStar = ((1 - xStar) * (1 + b1 * xStar)) / a1;
+  const invasionRate = (d2: number) => (a2 * yStar) / (1 + b2 * yStar) - d2;
+
+  it('reports a top level that cannot invade its boundary equilibrium as collapsing', () => {
+    const d2 = 0.0172;
+    const model = withParameter(benchmarkChain(b1), '/levels/2/mortality', d2);
+    const lambda = invasionRate(d2);
+    expect(lambda).toBeCloseTo(-0.0029916, 7);
+    // The engine's closed-form boundary equilibrium has that eigenvalue (the same Jacobian).
+    const boundary = findEquilibria(model).find((e) => e.kind === 'partial-chain')!;
+    expect(boundary.stable).toBe(true);
+    expect(boundary.eigenvalues.some((e) => Math.abs(e.re - lambda) < 1e-12)).toBe(true);
+
+    const options = { transient: 1000, window: 1000 };
+    const trend = new LevelTrend(3, options.window);
+    const run = lyapunovSpectrum(
+      compileChain(model),
+      initialVector(model, BENCHMARK_INITIAL),
+      options,
+      (step) => trend.observe(step),
+    );
+    expect(run.windowMin[2]).toBeGreaterThan(1e-3); // the threshold alone would not see it
+    // The fitted decline is the invasion rate (measured: within 5e-4 relative).
+    expect(Math.abs(trend.trends().rates[2]! / lambda - 1)).toBeLessThan(2e-3);
+
+    const r = assessRegime(model, BENCHMARK_INITIAL, options);
+    expect(r.regime).toBe('collapse');
+    expect(r.collapsedLevels).toEqual(['fish']);
+    expect(r.regimeNote).toBe(DYING_OUT_NOTE);
+  });
+
+  // The counterpart: with Hastings & Powell's own d2 = 0.01 the invasion rate is +0.0042, the
+  // fish persists and the chain settles on its interior equilibrium; its trend is zero.
+  it('keeps a top level that can invade out of collapse', () => {
+    const model = withParameter(benchmarkChain(b1), '/levels/2/mortality', 0.01);
+    expect(invasionRate(0.01)).toBeGreaterThan(0.004);
+    for (const options of [{ transient: 1000, window: 1000 }, {}]) {
+      expect(assessRegime(model, BENCHMARK_INITIAL, options).regime).toBe('equilibrium');
+    }
   });
 });
 

@@ -9,6 +9,7 @@ import {
   predictabilityHorizon,
   type Regime,
 } from './classify-regime';
+import { LevelTrend } from './level-trend';
 
 /** Default quasi-extinction threshold as a fraction of each level's natural scale. */
 export const DEFAULT_EXTINCTION_FRACTION = 1e-6;
@@ -94,16 +95,23 @@ export function assessKernel(
   extinction: ArrayLike<number>,
   options: RegimeOptions & { readonly absoluteTolerance: number; readonly observeIndex?: number },
 ): { report: RegimeReport; run: LyapunovResult } {
-  const run = lyapunovSpectrum(kernel, y0, {
-    transient: options.transient ?? 5000,
-    window: options.window ?? 5000,
-    exponents: options.exponents ?? 1,
-    relativeTolerance: options.tolerance ?? 1e-8,
-    absoluteTolerance: options.absoluteTolerance,
-    observe: options.observeIndex ?? kernel.dimension - 1,
-  });
+  const window = options.window ?? 5000;
+  const trend = new LevelTrend(kernel.dimension, window);
+  const run = lyapunovSpectrum(
+    kernel,
+    y0,
+    {
+      transient: options.transient ?? 5000,
+      window,
+      exponents: options.exponents ?? 1,
+      relativeTolerance: options.tolerance ?? 1e-8,
+      absoluteTolerance: options.absoluteTolerance,
+      observe: options.observeIndex ?? kernel.dimension - 1,
+    },
+    (step) => trend.observe(step),
+  );
   if (run.outcome !== 'completed') throw new AnalysisRunError(run.outcome);
-  const verdict = classifyRegime(run, { extinction });
+  const verdict = classifyRegime(run, { extinction }, trend.trends());
   const lambda = run.exponents[0]!;
   const horizon =
     verdict.regime === 'chaotic'

@@ -1,4 +1,5 @@
 import type { LyapunovResult } from '../lyapunov/lyapunov-spectrum';
+import type { LevelTrends } from './level-trend';
 import { periodFromMaxima } from './period-from-maxima';
 
 /** The long-run behaviour of a chain after its transient. */
@@ -8,11 +9,12 @@ export type Regime = 'equilibrium' | 'cycle' | 'chaotic' | 'collapse';
 export interface RegimeRules {
   /** Quasi-extinction threshold of each level, in its own unit. */
   readonly extinction: ArrayLike<number>;
-  /** Standard errors an exponent must clear to count as non-zero; default 3. */
+  /** Standard errors an exponent (or a level's decline rate) must clear to count; default 3. */
   readonly zScore?: number;
   /**
-   * Exponents within ±zeroBand (per model time unit) count as zero whatever their error;
-   * default 1e-3. Finite-window estimates of a cycle's exponent are O(1/window), not 0.
+   * Exponents (and levels' decline rates) within ±zeroBand per model time unit count as zero
+   * whatever their error; default 1e-3. Finite-window estimates of a cycle's exponent are
+   * O(1/window), not 0.
    */
   readonly zeroBand?: number;
   /** Relative spread (max − min)/max over the window under which a level has settled; 1e-6. */
@@ -34,13 +36,63 @@ export interface RegimeVerdict {
   readonly note?: string;
 }
 
+/** Note given when a level is dying out but has not yet crossed its threshold in the window. */
+export const DYING_OUT_NOTE =
+  'a level still above its quasi-extinction threshold is declining exponentially toward it ' +
+  '(dying out); its maxima are not a cycle or chaos';
+
+/**
+ * Fall of a dying level over the window, as a factor: a tenfold steady decline. A persisting
+ * level's logarithm is bounded, but a slow transient (an orbit spiralling onto its cycle) moves
+ * the mean of ln N by a few tenths over a short window; a decline beyond the rate's error and
+ * the zero band alone called such levels dying (seen on the invented upland's wolf sweep).
+ */
+export const DYING_FALL = 10;
+
+/**
+ * Rule 1: the levels that collapse — below their quasi-extinction threshold somewhere in the
+ * window (`windowMin`), or dying out: their fitted exponential rate r (see `LevelTrend`) below
+ * −max(zScore·SE, zeroBand) and r·window below −ln {@link DYING_FALL}. `dyingOnly` says whether
+ * every collapsed level is above its threshold still, i.e. only its decline decides.
+ */
+export function collapsedLevels(
+  windowMin: ArrayLike<number>,
+  rules: RegimeRules,
+  trends?: LevelTrends,
+): { levels: number[]; dyingOnly: boolean } {
+  const n = windowMin.length;
+  if (rules.extinction.length !== n) {
+    throw new RangeError(`extinction needs one threshold per level (${n})`);
+  }
+  const z = rules.zScore ?? 3;
+  const band = rules.zeroBand ?? 1e-3;
+  const levels: number[] = [];
+  let dyingOnly = true;
+  for (let i = 0; i < n; i++) {
+    if (windowMin[i]! < rules.extinction[i]!) {
+      levels.push(i);
+      dyingOnly = false;
+    } else if (
+      trends &&
+      trends.rates[i]! < -Math.max(z * trends.standardErrors[i]!, band) &&
+      trends.rates[i]! * trends.window < -Math.log(DYING_FALL)
+    ) {
+      levels.push(i);
+    }
+  }
+  return { levels, dyingOnly };
+}
+
 /** Note given when irregular maxima decide a regime the exponent's error leaves open. */
 export const IRREGULAR_NOTE =
   'irregular maxima with a positive exponent not yet beyond its error; a longer window settles it';
 
 /**
  * Classifies a run by these rules, in order:
- * 1. `collapse` if any level's minimum over the window is below its quasi-extinction threshold;
+ * 1. `collapse` if any level's minimum over the window is below its quasi-extinction threshold,
+ *    or (given `trends`) a level is dying out: declining exponentially beyond its error and the
+ *    zero band ({@link collapsedLevels}) — on its way below any threshold, so neither its
+ *    shrinking maxima nor the exponent of the levels left describe the long run;
  * 2. `equilibrium` if every level has settled (relative spread below `settledSpread`) or the
  *    largest exponent is negative beyond max(zScore·SE, zeroBand);
  * 3. `chaotic` if the largest exponent is positive beyond max(zScore·SE, zeroBand);
@@ -49,16 +101,20 @@ export const IRREGULAR_NOTE =
  *    exponent's estimate is positive, `chaotic` with a note that the window was short; else
  *    `cycle` without a period (a very long period, or a torus, which the four regimes fold in).
  */
-export function classifyRegime(run: LyapunovResult, rules: RegimeRules): RegimeVerdict {
+export function classifyRegime(
+  run: LyapunovResult,
+  rules: RegimeRules,
+  trends?: LevelTrends,
+): RegimeVerdict {
   const n = run.windowMin.length;
-  if (rules.extinction.length !== n) {
-    throw new RangeError(`extinction needs one threshold per level (${n})`);
+  const collapsed = collapsedLevels(run.windowMin, rules, trends);
+  if (collapsed.levels.length > 0) {
+    return {
+      regime: 'collapse',
+      collapsedLevels: collapsed.levels,
+      ...(collapsed.dyingOnly ? { note: DYING_OUT_NOTE } : {}),
+    };
   }
-  const collapsed: number[] = [];
-  for (let i = 0; i < n; i++) {
-    if (run.windowMin[i]! < rules.extinction[i]!) collapsed.push(i);
-  }
-  if (collapsed.length > 0) return { regime: 'collapse', collapsedLevels: collapsed };
   const z = rules.zScore ?? 3;
   const band = rules.zeroBand ?? 1e-3;
   const spread = rules.settledSpread ?? 1e-6;

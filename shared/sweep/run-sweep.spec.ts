@@ -5,6 +5,7 @@ import { withParameter } from '../model/parameter-pointer';
 import { validateSweepRequest, type SweepRequest } from '../analyses-contract/sweep-contract';
 import { AnalysisBoundsError } from '../analyses-contract/analysis-limits';
 import { assertSweepBounds, runSweepRange, sweepValues } from './run-sweep';
+import { LAKE_DEMO } from '../model/presets';
 import { benchmarkChain, BENCHMARK_INITIAL } from '../../tests/reference/analyses-benchmark-chain';
 
 const body = (over: object = {}) => ({
@@ -131,6 +132,84 @@ describe('sweeps along b1 of the Hastings & Powell (1991) chain', () => {
   it('spaces values evenly and ends exactly on `to`', () => {
     expect(sweepValues(2, 6.2, 100)[99]).toBe(6.2);
     expect(sweepValues(0, 1, 5)).toEqual([0, 0.25, 0.5, 0.75, 1]);
+  });
+});
+
+// The published mere (LAKE_DEMO) swept along the algal growth rate as <tropline-long-run> does:
+// 36 values over 1–3, transient 1040, window 520 weeks, the perch observed. At r = 1 and 1 + 2/35
+// the perch's peaks shrink towards 0 and the sweep called them irregular, i.e. chaotic.
+describe('a top level dying out along a sweep', () => {
+  const lake = (over: object = {}) => {
+    const v = validateSweepRequest({
+      model: LAKE_DEMO.model,
+      initial: LAKE_DEMO.initial,
+      parameter: '/levels/0/growthRate',
+      from: 1,
+      to: 1 + 2 / 35,
+      steps: 2,
+      observe: 'perch',
+      transient: 1040,
+      window: 520,
+      ...over,
+    });
+    if (!v.ok) throw new Error(JSON.stringify(v.errors));
+    return v.value;
+  };
+  const [algae, daphnia, perch] = LAKE_DEMO.model.levels as unknown as [
+    { carryingCapacity: number },
+    { attackRate: number; handlingTime: number; efficiency: number; mortality: number },
+    { attackRate: number; handlingTime: number; efficiency: number; mortality: number },
+  ];
+  /**
+   * The perch's invasion rate of the algae–Daphnia system without it: its per-capita growth
+   * e·a·D/(1 + a·h·D) − m averaged along that boundary attractor (common practice: invasion
+   * analysis; negative means the level cannot persist). Computed with odex 2.0.4 on the
+   * two-level model, the average integrated as a third component: independent of our kernel,
+   * DOP853 and the trend fit.
+   */
+  const invasionRate = (r: number) => {
+    const f = (_t: number, [x, y]: number[]) => {
+      const g1 = (daphnia.attackRate * x!) / (1 + daphnia.attackRate * daphnia.handlingTime * x!);
+      const g2 = (perch.attackRate * y!) / (1 + perch.attackRate * perch.handlingTime * y!);
+      return [
+        r * x! * (1 - x! / algae.carryingCapacity) - g1 * y!,
+        daphnia.efficiency * g1 * y! - daphnia.mortality * y!,
+        perch.efficiency * g2 - perch.mortality,
+      ];
+    };
+    const solver = new Solver(3);
+    solver.relativeTolerance = 1e-10;
+    solver.absoluteTolerance = 1e-10;
+    const onCycle = solver.solve(
+      f,
+      0,
+      [LAKE_DEMO.initial.algae!, LAKE_DEMO.initial.daphnia!, 0],
+      2000,
+    ).y;
+    return solver.solve(f, 0, [onCycle[0]!, onCycle[1]!, 0], 5000).y[2]! / 5000;
+  };
+
+  it('calls the perch collapsing, though above its threshold, where it cannot invade', () => {
+    const threshold = 1e-6 * 40 * 0.5 * 0.25; // 1e-6 × the perch's scale K·e1·e2
+    for (const point of runSweepRange(lake(), 0, 2).points) {
+      // Measured: −0.00741 at r = 1, −0.00677 at r = 1.057 (the fitted decline agrees to 0.3 %).
+      expect(invasionRate(point.value)).toBeLessThan(-0.006);
+      expect(point.regime).toBe('collapse');
+      expect(point.maxima.at(-1)!).toBeGreaterThan(100 * threshold);
+      expect(point.maxima.every((m, i, all) => i === 0 || m < all[i - 1]!)).toBe(true);
+    }
+  });
+
+  it('keeps the verdict under other tolerances, transients and the Lyapunov method', () => {
+    for (const over of [
+      { tolerance: 1e-7 },
+      { tolerance: 1e-10, transient: 2080 },
+      { transient: 520, window: 1040 },
+      { regimeMethod: 'lyapunov' },
+    ]) {
+      const regimes = runSweepRange(lake(over), 0, 2).points.map((p) => p.regime);
+      expect(regimes, JSON.stringify(over)).toEqual(['collapse', 'collapse']);
+    }
   });
 });
 

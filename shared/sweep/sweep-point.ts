@@ -1,9 +1,10 @@
 import type { ChainKernel } from '../model/chain-kernel';
 import { Dop853 } from '../integrate/dop853';
 import { LocalMaxima } from '../regime/local-maxima';
+import { LevelTrend } from '../regime/level-trend';
 import { periodFromMaxima } from '../regime/period-from-maxima';
 import { AnalysisRunError, assessKernel } from '../regime/assess-regime';
-import type { Regime } from '../regime/classify-regime';
+import { collapsedLevels, type Regime } from '../regime/classify-regime';
 
 /** How a sweep point's regime is decided. */
 export type SweepRegimeMethod = 'maxima' | 'lyapunov';
@@ -42,8 +43,9 @@ export interface SweepPointRun {
 /**
  * Integrates one parameter value: transient, then the window while recording the observed
  * level's local maxima from the dense output. With the `maxima` method the regime follows from
- * the window alone (collapse below a threshold; equilibrium when every level has settled; cycle
- * when the maxima recur; otherwise chaotic, i.e. irregular maxima); with `lyapunov` it is the
+ * the window alone (collapse below a threshold or dying out, as rule 1 of `classifyRegime`;
+ * equilibrium when every level has settled; cycle when the maxima recur; otherwise chaotic,
+ * i.e. irregular maxima); with `lyapunov` it is the
  * Benettin classification of {@link assessKernel} (about 3× the work).
  */
 export function sweepPoint(
@@ -94,6 +96,7 @@ export function sweepPoint(
   const min = Array.from(y);
   const max = Array.from(y);
   const maxima = new LocalMaxima(s.observe);
+  const trend = new LevelTrend(n, s.window);
   const r = stepper.integrate(rhs, 0, y, s.window, y, { ...options, initialStep: h }, (step) => {
     const yn = step.yNew;
     for (let i = 0; i < n; i++) {
@@ -102,6 +105,7 @@ export function sweepPoint(
       else if (v > max[i]!) max[i] = v;
     }
     maxima.observe(step);
+    trend.observe(step);
   });
   if (r.outcome !== 'completed') throw new AnalysisRunError(r.outcome);
   steps += r.steps;
@@ -111,7 +115,7 @@ export function sweepPoint(
     point: {
       value,
       maxima: settledMaxima(min, max, s.observe) ?? values,
-      regime: maximaRegime(min, max, extinction, maxima, values),
+      regime: maximaRegime(min, max, extinction, trend, maxima, values),
     },
     state: y,
     steps,
@@ -137,10 +141,11 @@ function maximaRegime(
   min: readonly number[],
   max: readonly number[],
   extinction: ArrayLike<number>,
+  trend: LevelTrend,
   maxima: LocalMaxima,
   values: readonly number[],
 ): Regime {
-  for (let i = 0; i < min.length; i++) if (min[i]! < extinction[i]!) return 'collapse';
+  if (collapsedLevels(min, { extinction }, trend.trends()).levels.length > 0) return 'collapse';
   let all = true;
   for (let i = 0; i < min.length; i++) if (!settled(min[i]!, max[i]!)) all = false;
   if (all || values.length < 3) return 'equilibrium';
