@@ -100,6 +100,31 @@ describe('console: an analyst edits a scenario, compares versions and runs every
     await page.getByRole('checkbox', { name: 'Show only the differences' }).check();
     expect(await table.locator('tbody tr').count()).toBe(4);
     await checkpoint(page, 'edit-06-compare-differences');
+
+    // Someone else saves while this edit is open: the server's conflict (pointer
+    // /baseVersion, which no field holds) is shown for the whole form, with what to do.
+    await page.getByRole('link', { name: '← Back to the scenario' }).click();
+    await page.getByRole('link', { name: /^Edit version 2/ }).click();
+    await page.getByLabel('Change note').fill('A second look at the horizon');
+    const other = await page.evaluate(async () => {
+      const session = await (await fetch('/api/v1/session')).json();
+      const id = location.pathname.split('/').at(-2);
+      const latest = await (await fetch(`/api/v1/scenarios/${id}/versions/2`)).json();
+      const res = await fetch(`/api/v1/scenarios/${id}/versions`, {
+        method: 'POST',
+        headers: { 'Content-Type': 'application/json', 'X-CSRF-Token': session.csrfToken },
+        body: JSON.stringify({ ...latest.content, changeNote: 'Saved elsewhere' }),
+      });
+      return res.status;
+    });
+    expect(other).toBe(201);
+    await page.getByRole('button', { name: 'Save as version 3' }).click();
+    const conflict = page.getByRole('alert').filter({ hasText: 'Reload the page' });
+    await conflict.waitFor();
+    expect(await conflict.textContent()).toContain('Version 3 was saved after version 2');
+    await checkpoint(page, 'edit-07-conflict');
+    await page.getByRole('button', { name: /^Start again from the latest version/ }).click();
+    await page.getByText(/You are editing version 3 \(draft\)/).waitFor();
     expect(outside).toEqual([]);
   });
 

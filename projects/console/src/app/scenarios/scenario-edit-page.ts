@@ -141,6 +141,8 @@ export class ScenarioEditPage {
   protected readonly problems = signal<readonly ShownProblem[]>([]);
   /** A failure that belongs to no field (a conflict, the network…). */
   protected readonly failure = signal<ProblemText | undefined>(undefined);
+  /** Whether someone saved a newer version while this edit was open. */
+  protected readonly conflict = signal(false);
   protected readonly bounds = computed(() => {
     const model = this.data.value()?.latest.content?.model;
     return model ? editingBounds(model) : [];
@@ -159,7 +161,11 @@ export class ScenarioEditPage {
     });
   }
 
-  private async load(): Promise<void> {
+  /** Loads the latest version into the form (again, after a conflict: edits are dropped). */
+  protected async load(): Promise<void> {
+    this.conflict.set(false);
+    this.failure.set(undefined);
+    this.problems.set([]);
     await this.data.load();
     const content = this.data.value()?.latest.content;
     if (!content) return;
@@ -210,9 +216,10 @@ export class ScenarioEditPage {
       });
     } catch (err) {
       const p = problemText(err, 'save the version');
-      const onFields = p.fields.filter((f) => fieldTarget(f.pointer, model).kind !== 'form');
-      if (onFields.length) this.show(onFields, d.latest);
-      this.failure.set(onFields.length === p.fields.length && onFields.length ? undefined : p);
+      // A newer version (409 at /baseVersion) belongs to no field: the alert offers what to do.
+      this.conflict.set(p.status === 409);
+      if (p.fields.length && p.status !== 409) this.show(p.fields, d.latest);
+      this.failure.set(p.fields.length && p.status !== 409 ? undefined : p);
     } finally {
       this.saving.set(false);
     }
