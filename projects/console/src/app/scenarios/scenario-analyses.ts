@@ -178,7 +178,7 @@ export class ScenarioAnalyses {
             model: c.model,
             initial: c.initial,
             horizon: c.horizon,
-            samples: 501,
+            samples: 2001,
           }),
         ),
         firstValueFrom(this.client.equilibria({ model: c.model })),
