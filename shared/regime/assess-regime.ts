@@ -10,6 +10,7 @@ import {
   type Regime,
 } from './classify-regime';
 import { LevelTrend } from './level-trend';
+import { endsOnAttractingEquilibrium } from './attracting-equilibrium';
 
 /** Default quasi-extinction threshold as a fraction of each level's natural scale. */
 export const DEFAULT_EXTINCTION_FRACTION = 1e-6;
@@ -111,7 +112,14 @@ export function assessKernel(
     (step) => trend.observe(step),
   );
   if (run.outcome !== 'completed') throw new AnalysisRunError(run.outcome);
-  const verdict = classifyRegime(run, { extinction }, trend.trends());
+  const verdict = classifyRegime(
+    run,
+    { extinction },
+    {
+      trends: trend.trends(),
+      damped: () => endsOnAttractingEquilibrium(kernel, run.state, run.windowMin, run.windowMax),
+    },
+  );
   const lambda = run.exponents[0]!;
   const horizon =
     verdict.regime === 'chaotic'

@@ -83,6 +83,17 @@ export function collapsedLevels(
   return { levels, dyingOnly };
 }
 
+/** What the window showed besides the exponents, for the rules that use it. */
+export interface WindowEvidence {
+  /** Each level's exponential trend (rule 1's dying out). */
+  readonly trends?: LevelTrends;
+  /**
+   * Whether the window ends on a damped approach to an attracting equilibrium (rule 2; see
+   * `endsOnAttractingEquilibrium`); asked only when the earlier tests leave it open.
+   */
+  readonly damped?: () => boolean;
+}
+
 /** Note given when irregular maxima decide a regime the exponent's error leaves open. */
 export const IRREGULAR_NOTE =
   'irregular maxima with a positive exponent not yet beyond its error; a longer window settles it';
@@ -90,11 +101,13 @@ export const IRREGULAR_NOTE =
 /**
  * Classifies a run by these rules, in order:
  * 1. `collapse` if any level's minimum over the window is below its quasi-extinction threshold,
- *    or (given `trends`) a level is dying out: declining exponentially beyond its error and the
+ *    or (given `evidence.trends`) a level is dying out: declining exponentially beyond its error and the
  *    zero band ({@link collapsedLevels}) — on its way below any threshold, so neither its
  *    shrinking maxima nor the exponent of the levels left describe the long run;
- * 2. `equilibrium` if every level has settled (relative spread below `settledSpread`) or the
- *    largest exponent is negative beyond max(zScore·SE, zeroBand);
+ * 2. `equilibrium` if every level has settled (relative spread below `settledSpread`), the
+ *    largest exponent is negative beyond max(zScore·SE, zeroBand), or (given `damped`) the window
+ *    ends on a damped approach to an attracting equilibrium — a short window's exponent error
+ *    can hide λ < 0 while the damped maxima still pass as a cycle's;
  * 3. `chaotic` if the largest exponent is positive beyond max(zScore·SE, zeroBand);
  * 4. otherwise the exponent is zero within its error: `cycle` when the observed level's
  *    successive maxima recur (the period from that recurrence); when they do not recur and the
@@ -104,10 +117,10 @@ export const IRREGULAR_NOTE =
 export function classifyRegime(
   run: LyapunovResult,
   rules: RegimeRules,
-  trends?: LevelTrends,
+  evidence: WindowEvidence = {},
 ): RegimeVerdict {
   const n = run.windowMin.length;
-  const collapsed = collapsedLevels(run.windowMin, rules, trends);
+  const collapsed = collapsedLevels(run.windowMin, rules, evidence.trends);
   if (collapsed.levels.length > 0) {
     return {
       regime: 'collapse',
@@ -125,7 +138,7 @@ export function classifyRegime(
   }
   const lambda = run.exponents[0]!;
   const margin = Math.max(z * run.standardErrors[0]!, band);
-  if (settled || lambda < -margin) return { regime: 'equilibrium' };
+  if (settled || lambda < -margin || evidence.damped?.()) return { regime: 'equilibrium' };
   if (lambda > margin) return { regime: 'chaotic' };
   const p = periodFromMaxima(run.maximaTimes, run.maximaValues, rules.periodTolerance ?? 1e-4);
   if (p !== undefined)

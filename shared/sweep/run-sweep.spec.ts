@@ -5,7 +5,8 @@ import { withParameter } from '../model/parameter-pointer';
 import { validateSweepRequest, type SweepRequest } from '../analyses-contract/sweep-contract';
 import { AnalysisBoundsError } from '../analyses-contract/analysis-limits';
 import { assertSweepBounds, runSweepRange, sweepValues } from './run-sweep';
-import { LAKE_DEMO } from '../model/presets';
+import { LAKE_DEMO, UPLAND_DEMO } from '../model/presets';
+import { findEquilibria } from '../equilibria/find-equilibria';
 import { benchmarkChain, BENCHMARK_INITIAL } from '../../tests/reference/analyses-benchmark-chain';
 
 const body = (over: object = {}) => ({
@@ -209,6 +210,64 @@ describe('a top level dying out along a sweep', () => {
     ]) {
       const regimes = runSweepRange(lake(over), 0, 2).points.map((p) => p.regime);
       expect(regimes, JSON.stringify(over)).toEqual(['collapse', 'collapse']);
+    }
+  });
+});
+
+// Hastings & Powell's chain at b1 = 2 has an attracting interior equilibrium (Jacobian
+// eigenvalues −0.016686 ± 0.1223i, −0.3466; closed form, see assess-regime.spec): after a short
+// transient its damped oscillation is not settled and its shrinking maxima do not recur, which
+// the maxima method called chaotic (transient 200) or a cycle (transient 500).
+describe('a damped approach to an attracting equilibrium', () => {
+  it('is an equilibrium whatever the transient, window or method', () => {
+    const interior = findEquilibria(benchmarkChain(2)).find((e) => e.kind === 'interior')!;
+    expect(interior.stable).toBe(true);
+    expect(interior.eigenvalues[0]!.re).toBeCloseTo(-0.016686, 5);
+    for (const over of [
+      { transient: 0, window: 300 },
+      { transient: 200, window: 300 },
+      { transient: 500, window: 500 },
+      { transient: 500, window: 500, regimeMethod: 'lyapunov' },
+      { transient: 1000, window: 1000, tolerance: 1e-10 },
+    ]) {
+      const [point] = runSweepRange(
+        request({ from: 0.4, to: 0.4, steps: 2, ...over }),
+        0,
+        1,
+      ).points;
+      expect(point!.regime, JSON.stringify(over)).toBe('equilibrium');
+    }
+    // The maxima the old rule saw: still falling by more than its 1e-4 at transient 200.
+    const [early] = runSweepRange(
+      request({ from: 0.4, to: 0.4, steps: 2, transient: 200, window: 300 }),
+      0,
+      1,
+    ).points;
+    const m = early!.maxima;
+    expect(m[0]! - m.at(-1)!).toBeGreaterThan(1e-4 * m[0]!);
+  });
+
+  // The published upland (UPLAND_DEMO, "settles") swept along deer mortality as
+  // <tropline-long-run> does (0.2–0.5, transient 200, window 100 years): its interior
+  // equilibrium is stable at every value (eigenvalues from the engine's Jacobian), and the
+  // slow wolves leave damped oscillations in the window that read as chaos or a cycle before.
+  it('labels the upland settling across its published range', () => {
+    const v = validateSweepRequest({
+      model: UPLAND_DEMO.model,
+      initial: UPLAND_DEMO.initial,
+      parameter: '/levels/1/mortality',
+      from: 0.2,
+      to: 0.5,
+      steps: 8,
+      observe: 'wolves',
+      transient: 200,
+      window: 100,
+    });
+    if (!v.ok) throw new Error(JSON.stringify(v.errors));
+    for (const point of runSweepRange(v.value, 0, 8).points) {
+      const model = withParameter(UPLAND_DEMO.model, '/levels/1/mortality', point.value);
+      expect(findEquilibria(model).find((e) => e.kind === 'interior')!.stable).toBe(true);
+      expect(point.regime, String(point.value)).toBe('equilibrium');
     }
   });
 });

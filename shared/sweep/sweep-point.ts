@@ -5,6 +5,7 @@ import { LevelTrend } from '../regime/level-trend';
 import { periodFromMaxima } from '../regime/period-from-maxima';
 import { AnalysisRunError, assessKernel } from '../regime/assess-regime';
 import { collapsedLevels, type Regime } from '../regime/classify-regime';
+import { endsOnAttractingEquilibrium } from '../regime/attracting-equilibrium';
 
 /** How a sweep point's regime is decided. */
 export type SweepRegimeMethod = 'maxima' | 'lyapunov';
@@ -44,8 +45,9 @@ export interface SweepPointRun {
  * Integrates one parameter value: transient, then the window while recording the observed
  * level's local maxima from the dense output. With the `maxima` method the regime follows from
  * the window alone (collapse below a threshold or dying out, as rule 1 of `classifyRegime`;
- * equilibrium when every level has settled; cycle when the maxima recur; otherwise chaotic,
- * i.e. irregular maxima); with `lyapunov` it is the
+ * equilibrium when every level has settled or the window ends on a damped approach to an
+ * attracting equilibrium (`endsOnAttractingEquilibrium`); cycle when the maxima recur;
+ * otherwise chaotic, i.e. irregular maxima); with `lyapunov` it is the
  * Benettin classification of {@link assessKernel} (about 3× the work).
  */
 export function sweepPoint(
@@ -115,7 +117,9 @@ export function sweepPoint(
     point: {
       value,
       maxima: settledMaxima(min, max, s.observe) ?? values,
-      regime: maximaRegime(min, max, extinction, trend, maxima, values),
+      regime: maximaRegime(min, max, extinction, trend, maxima, values, () =>
+        endsOnAttractingEquilibrium(kernel, y, min, max),
+      ),
     },
     state: y,
     steps,
@@ -144,10 +148,11 @@ function maximaRegime(
   trend: LevelTrend,
   maxima: LocalMaxima,
   values: readonly number[],
+  damped: () => boolean,
 ): Regime {
   if (collapsedLevels(min, { extinction }, trend.trends()).levels.length > 0) return 'collapse';
   let all = true;
   for (let i = 0; i < min.length; i++) if (!settled(min[i]!, max[i]!)) all = false;
-  if (all || values.length < 3) return 'equilibrium';
+  if (all || values.length < 3 || damped()) return 'equilibrium';
   return periodFromMaxima(maxima.maximaTimes(), values, 1e-4) ? 'cycle' : 'chaotic';
 }
