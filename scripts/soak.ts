@@ -37,6 +37,14 @@ import {
   fuzzTarget,
   newTally,
 } from '../tests/reliability/route-fuzz';
+import {
+  bystander,
+  idleConnections,
+  neverReads,
+  rawGet,
+  trickleBody,
+  trickleHead,
+} from '../tests/reliability/slow-clients';
 
 const FUZZ_RUNS = Number(process.env.SOAK_FUZZ ?? 3000);
 const CRASH_CYCLES = Number(process.env.SOAK_CRASHES ?? 8);
@@ -272,6 +280,48 @@ function mergeFloodReports(reports: FloodReport[]): FloodReport {
   };
 }
 
+/** Hostile clients on raw sockets, all at once, beside one well-behaved client. */
+async function slowClients(): Promise<void> {
+  const file = freshDatabaseFile('soak-slow');
+  const { demo } = await prepareDatabase(file, async () => ({}));
+  // The server's limits shortened, so each cut-off comes within seconds.
+  const server = await spawnApi(file, {
+    HTTP_HEADERS_TIMEOUT_MS: '1500',
+    HTTP_REQUEST_TIMEOUT_MS: '3000',
+    HTTP_KEEP_ALIVE_TIMEOUT_MS: '2500',
+    HTTP_IDLE_TIMEOUT_MS: '3000',
+  });
+  const heads = Array.from({ length: 20 }, () => trickleHead(server.port));
+  const bodies = Array.from({ length: 20 }, () => trickleBody(server.port, demo.serverKey));
+  const idle = idleConnections(server.port, 200);
+  const readers = Array.from({ length: 4 }, () =>
+    neverReads(server.port, rawGet('/api/openapi.json').repeat(200)),
+  );
+  const all = Promise.all([...heads, ...bodies, idle, ...readers]);
+  const deadline = new Promise<'held'>((r) => setTimeout(() => r('held'), 120_000).unref());
+  const seen = await bystander(server.url, demo.serverKey, Promise.race([all, deadline]));
+  const cut = await Promise.race([all, deadline]);
+  await server.stop();
+  // Settled only when every hostile connection was cut off; then count the 408 answers.
+  const timedOut =
+    cut === 'held'
+      ? 0
+      : cut
+          .slice(0, heads.length + bodies.length)
+          .filter((c) => (c as { statusLine: string }).statusLine.startsWith('HTTP/1.1 408'))
+          .length;
+  if (cut === 'held' || seen.other.length) totals.broken++;
+  totals.requests += seen.answered + seen.other.length;
+  totals.fiveHundreds += seen.other.filter((s) => s >= 500).length;
+  rows.push([
+    'slow clients',
+    `${heads.length} trickled heads, ${bodies.length} trickled bodies, 200 idle connections, ` +
+      `${readers.length} pipelining readers that stopped: ${cut === 'held' ? 'some still held' : 'all cut off'}` +
+      ` (${timedOut} answered 408); bystander answered ${seen.answered}/` +
+      `${seen.answered + seen.other.length}`,
+  ]);
+}
+
 async function matrix(): Promise<void> {
   const running = await serve(
     testConfig({ sqliteFile: freshDatabaseFile('soak-matrix'), port: 0 }),
@@ -300,6 +350,7 @@ async function main(): Promise<void> {
     ['crash cycles', crashes],
     ['sustained load', sustainedLoad],
     ['victim vs flood', flood],
+    ['slow clients', slowClients],
   ];
   let load = { rps: NaN, p99: NaN };
   for (const [name, stage] of stages) {

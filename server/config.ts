@@ -11,6 +11,7 @@ import { randomBytes } from 'node:crypto';
 import { dirname, resolve } from 'node:path';
 import addressparser from 'nodemailer/lib/addressparser';
 import { emailProblems } from './accounts/email-address';
+import { readSocketLimits, type SocketLimits } from './socket-limits';
 
 /** Runtime configuration, read and checked once at start-up (architecture.md, "Configuration"). */
 export interface Config {
@@ -34,6 +35,8 @@ export interface Config {
   readonly distDir: string;
   /** pino log level; `silent` in tests. */
   readonly logLevel: string;
+  /** Timeouts and the connection cap of the HTTP server (`HTTP_*`, see socket-limits.ts). */
+  readonly socket: SocketLimits;
 }
 
 /** A configuration problem, naming the variable; start-up prints it without a stack trace. */
@@ -159,6 +162,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     serveApps: env.TROPLINE_SERVE_APPS !== '0',
     distDir: env.TROPLINE_DIST_DIR || 'dist',
     logLevel: env.LOG_LEVEL || (nodeEnv === 'test' ? 'silent' : 'info'),
+    socket: readSocketLimits(env, (variable, message) => new ConfigError(variable, message)),
   };
 }
 

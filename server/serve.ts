@@ -1,9 +1,10 @@
-import { STATUS_CODES, type Server } from 'node:http';
+import { createServer, STATUS_CODES, type Server } from 'node:http';
 import type { Duplex } from 'node:stream';
 import type { AddressInfo } from 'node:net';
 import type { Config } from './config';
 import { createApp, type TroplineApp } from './create-app';
 import { ProblemError } from './http/problem';
+import { applySocketLimits, boundPipelining, serverOptions } from './socket-limits';
 
 /** A listening Tropline server. */
 export interface RunningServer {
@@ -29,24 +30,29 @@ function answerClientError(err: NodeJS.ErrnoException, socket: Duplex): void {
     socket.destroy();
     return;
   }
-  const [status, slug, title] =
+  const [status, slug, title, detail] =
     err.code === 'HPE_HEADER_OVERFLOW'
-      ? [431, 'headers-too-large', 'The request head is too large']
+      ? [
+          431,
+          'headers-too-large',
+          'The request head is too large',
+          'The URL and headers together exceed 16 KB.',
+        ]
       : err.code === 'ERR_HTTP_REQUEST_TIMEOUT'
-        ? [408, 'request-timeout', 'The request took too long to arrive']
-        : [400, 'bad-request', 'The request could not be parsed'];
-  const body = JSON.stringify(
-    new ProblemError(
-      status,
-      slug,
-      title,
-      'The URL and headers together exceed 16 KB, or are not ' + 'valid HTTP.',
-    ).toDocument(),
-  );
+        ? [
+            408,
+            'request-timeout',
+            'The request took too long to arrive',
+            'The request head or body arrived too slowly; the connection is closed.',
+          ]
+        : [400, 'bad-request', 'The request could not be parsed', 'The request is not valid HTTP.'];
+  const body = JSON.stringify(new ProblemError(status, slug, title, detail).toDocument());
   socket.end(
     `HTTP/1.1 ${status} ${STATUS_CODES[status]}\r\nContent-Type: application/problem+json\r\n` +
       `Content-Length: ${Buffer.byteLength(body)}\r\nConnection: close\r\n\r\n${body}`,
   );
+  // A client that stops reading must not keep the socket half-open.
+  socket.once('finish', () => socket.destroy());
 }
 
 /**
@@ -63,11 +69,11 @@ export async function serve(config: Config): Promise<RunningServer> {
     await context.close();
     throw new StartupError(`cannot prepare the database ${config.sqliteFile}: ${String(err)}`);
   }
-  const server = app.listen(config.port);
-  server.on('clientError', answerClientError);
   // Requests that compute are bounded server-side; these stop slow clients holding sockets.
-  server.requestTimeout = 60_000;
-  server.headersTimeout = 15_000;
+  const server = createServer(serverOptions(config.socket), boundPipelining(app, config.socket));
+  applySocketLimits(server, config.socket);
+  server.on('clientError', answerClientError);
+  server.listen(config.port);
   await new Promise<void>((resolve, reject) => {
     server.once('listening', resolve);
     server.once('error', (err: NodeJS.ErrnoException) => {

@@ -83,7 +83,7 @@ export function syncCompute<T>(
       sendJson(res, hit, 'hit', `admit;dur=${ms(admitMs)}, total;dur=${ms(elapsed(res))}`);
       return;
     }
-    const pending = quotas.begin(principal, endpoint.name, cost);
+    const pending = quotas.begin(principal, endpoint.name, cost, res);
     let waited = performance.now();
     if (!pending.overlap) await pending.decided(res);
     let admitMs = performance.now() - waited;

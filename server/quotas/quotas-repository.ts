@@ -35,7 +35,7 @@ export interface AdmissionRequest {
 
 /** The counters after an attempt; `refused` says which limit stopped it, if any. */
 export interface AdmissionOutcome {
-  readonly refused?: 'per-minute' | 'monthly-units';
+  readonly refused?: 'per-minute' | 'monthly-units' | 'open-requests';
   /** Requests counted in the current window, this one included when admitted. */
   readonly requests: number;
   /** Units used this month, this request's included when admitted. */

@@ -2,6 +2,7 @@ import type { RequestHandler, Response } from 'express';
 import type { Knex } from 'knex';
 import { principalOf, type KeyPrincipal } from '../auth/key-principal';
 import { AuditRepository } from '../audit/audit-repository';
+import type { KeyKind } from '../keys/key-token';
 import { ProblemError, validationProblem, type FieldError } from '../http/problem';
 import { AdmissionOutlook } from './admission-outlook';
 import { ledgerWriter, type LedgerWriter } from './ledger-writer';
@@ -49,9 +50,17 @@ export interface PendingAdmission {
   decided(res: Response): Promise<Admission>;
 }
 
+/**
+ * Requests one key may have open at once in one API process: answers being computed or
+ * streamed (a job's progress stream stays open until the job ends). A client that opens
+ * streams and never reads them holds at most this many; browser keys are public, so fewer.
+ */
+export const OPEN_REQUESTS_PER_KEY: Record<KeyKind, number> = { server: 64, browser: 32 };
+
 /** Metering: per-key request rate and per-tenant monthly compute units. */
 export class QuotasService {
   readonly repository: QuotasRepository;
+  private readonly open = new Map<string, number>();
   private readonly ledger: LedgerWriter;
   private readonly outlook = new AdmissionOutlook();
   private lastPruned = 0;
@@ -72,7 +81,7 @@ export class QuotasService {
     res: Response,
     cached = false,
   ): Promise<Admission> {
-    return this.begin(principal, endpoint, cost, cached).decided(res);
+    return this.begin(principal, endpoint, cost, res, cached).decided(res);
   }
 
   /**
@@ -80,7 +89,7 @@ export class QuotasService {
    * while the commit waits for the disk. The counters move only in the ledger's guarded
    * statements, so overlapping changes nothing of who is admitted.
    */
-  begin(principal: KeyPrincipal, endpoint: string, cost: number, cached = false) {
+  begin(principal: KeyPrincipal, endpoint: string, cost: number, res: Response, cached = false) {
     const nowMs = this.now();
     const windowStart = Math.floor(nowMs / 60_000) * 60;
     const ticket: Admission = {
@@ -96,6 +105,26 @@ export class QuotasService {
       at: new Date(nowMs).toISOString(),
     };
     this.prune(windowStart);
+    const opened = this.open.get(ticket.keyId) ?? 0;
+    if (opened >= OPEN_REQUESTS_PER_KEY[principal.kind]) {
+      // Refused before the ledger: nothing is counted, the headers show the counters as they are.
+      const counters = this.counters(ticket);
+      counters.catch(() => undefined);
+      return {
+        overlap: false,
+        decided: (r: Response) =>
+          counters.then((c) => {
+            this.answer(principal, ticket, { ...c, refused: 'open-requests' }, nowMs, r);
+            return ticket;
+          }),
+      } satisfies PendingAdmission;
+    }
+    this.open.set(ticket.keyId, opened + 1);
+    res.once('close', () => {
+      const n = (this.open.get(ticket.keyId) ?? 1) - 1;
+      if (n > 0) this.open.set(ticket.keyId, n);
+      else this.open.delete(ticket.keyId);
+    });
     const overlap = this.outlook.mayOverlap(ticket);
     this.outlook.sent(ticket);
     const outcome = this.ledger.write({ kind: 'admit', request: ticket }).then(
@@ -118,6 +147,15 @@ export class QuotasService {
           return ticket;
         })),
     } satisfies PendingAdmission;
+  }
+
+  /** The key's requests this minute and the tenant's units this month, as stored now. */
+  private async counters(a: Admission): Promise<AdmissionOutcome> {
+    const [requests, used] = await Promise.all([
+      this.repository.requestsInWindow(a.keyId, a.windowStart),
+      this.repository.used(a),
+    ]);
+    return { requests, used };
   }
 
   /** Sets the rate-limit fields for an outcome; throws the 429 of a refusal. */
@@ -150,6 +188,7 @@ export class QuotasService {
     const headers = rateLimitHeaders(states);
     res.set(headers);
     if (!outcome.refused) return;
+    if (outcome.refused === 'open-requests') throw this.tooManyOpen(principal, headers, nowMs);
     const perMinute = outcome.refused === 'per-minute';
     const retryAfter = perMinute ? minuteReset : monthReset;
     const resetsAt = new Date(
@@ -167,6 +206,19 @@ export class QuotasService {
             `at ${resetsAt}.`,
       { limit: outcome.refused, cost, resetsAt, retryAfter },
       { ...headers, 'Retry-After': String(retryAfter) },
+    );
+  }
+
+  private tooManyOpen(principal: KeyPrincipal, headers: Record<string, string>, nowMs: number) {
+    const cap = OPEN_REQUESTS_PER_KEY[principal.kind];
+    return new ProblemError(
+      429,
+      'too-many-open-requests',
+      'Too many open requests',
+      `This ${principal.kind} key already has ${cap} requests open on this server (progress ` +
+        'streams included); close one, or wait for one to finish, and try again.',
+      { limit: 'open-requests', resetsAt: new Date(nowMs + 1000).toISOString(), retryAfter: 1 },
+      { ...headers, 'Retry-After': '1' },
     );
   }
 
