@@ -40,9 +40,11 @@ export const DEMO_SCENARIOS: readonly DemoScenario[] = [
       { pointer: '/levels/1/handlingTime', min: 0.1, max: 0.3, label: 'Daphnia handling time' },
       { pointer: '/levels/2/mortality', min: 0.01, max: 0.05, label: 'Perch mortality' },
     ],
-    // Fortnightly plankton and perch surveys over two years, 5 % of visits missed.
+    // Fortnightly plankton and perch surveys over six years, 5 % of visits missed: long enough
+    // for the chain's chaos to show in a calibration (errors grow e-fold in about 100 weeks),
+    // so the demo offers the fit in segments.
     survey: {
-      times: Array.from({ length: 53 }, (_, i) => i * 2),
+      times: Array.from({ length: 157 }, (_, i) => i * 2),
       logSigma: 0.1,
       seed: 8101,
       missing: 0.05,

@@ -9,8 +9,13 @@ export interface GoodnessOfFit {
   readonly fitted: number;
   /** Σ (w·(ln y − ln ŷ))². */
   readonly sumOfSquares: number;
-  /** √(Σ r² / n): the typical log-scale miss (0.1 ≈ 10 %). */
+  /** √(Σ (ln y − ln ŷ)² / n), unweighted: the typical log-scale miss (0.1 ≈ 10 %). */
   readonly rmse: number;
+  /**
+   * Weighted fits only: √(Σ r² / n) of the residuals in units of the data's own standard
+   * errors; near 1 when the stated errors are right (a little below: the fit used k values).
+   */
+  readonly weightedRms?: number;
   /** 1 − SS_res/SS_tot of the log values (unweighted, about each level's mean). */
   readonly rSquaredLog: number;
   /** Akaike's criterion for Gaussian errors, n·ln(SS/n) + 2k, to compare fits of one dataset. */
@@ -66,7 +71,8 @@ export function goodnessOfFit(
     points: n,
     fitted: k,
     sumOfSquares: ss,
-    rmse: Math.sqrt(ss / Math.max(1, n)),
+    rmse: Math.sqrt(ssRes / Math.max(1, n)),
+    ...(weighted ? { weightedRms: Math.sqrt(ss / Math.max(1, n)) } : {}),
     rSquaredLog: ssTot > 0 ? 1 - ssRes / ssTot : 0,
     aic: n * Math.log(Math.max(ss, 1e-300) / n) + 2 * k,
     weighted,

@@ -53,8 +53,10 @@ export interface ScenarioContent {
 }
 
 /**
- * Validates scenario content. Pointers are relative to `prefix` (the body of a save, or
- * `/scenario` inside an export document), so every issue names its field.
+ * Validates scenario content, reporting every issue at once: the fields' shapes, the model
+ * (even when another field is wrong), then the start and the public ranges against a valid
+ * model. Pointers are relative to `prefix` (the body of a save, or `/scenario` inside an export
+ * document), so every issue names its field.
  */
 export function validateScenarioContent(
   value: unknown,
@@ -62,17 +64,22 @@ export function validateScenarioContent(
 ): ValidationResult<ScenarioContent> {
   const at = (p: string) => (prefix.length ? `/${prefix.join('/')}${p}` : p);
   const shape = scenarioContentSchema.safeParse(value);
-  if (!shape.success) return { ok: false, errors: issuesFromZod(shape.error, prefix) };
-  const model = chainModelSchema.safeParse(shape.data.model);
+  const errors: ValidationIssue[] = shape.success ? [] : issuesFromZod(shape.error, prefix);
+  const raw = (value !== null && typeof value === 'object' ? value : {}) as Record<string, unknown>;
+  if (!('model' in raw)) return { ok: false, errors };
+  const model = chainModelSchema.safeParse(raw.model);
   if (!model.success) {
-    return { ok: false, errors: issuesFromZod(model.error, [...prefix, 'model']) };
+    return { ok: false, errors: [...errors, ...issuesFromZod(model.error, [...prefix, 'model'])] };
   }
-  const bounds = shape.data.publicParameters ?? [];
-  const errors: ValidationIssue[] = [
-    ...initialStateIssues(model.data, shape.data.initial, at('/initial')),
-    ...publicBoundsIssues(model.data, bounds, at('/publicParameters')),
-  ];
-  if (errors.length) return { ok: false, errors };
+  // The start and the public ranges can be checked against the model whenever they have
+  // their shape, whatever else is wrong.
+  const initial = z.record(z.string(), z.unknown()).safeParse(raw.initial);
+  const bounds = z.array(publicParameterSchema).safeParse(raw.publicParameters ?? []);
+  if (initial.success) errors.push(...initialStateIssues(model.data, initial.data, at('/initial')));
+  if (bounds.success) {
+    errors.push(...publicBoundsIssues(model.data, bounds.data, at('/publicParameters')));
+  }
+  if (errors.length || !shape.success) return { ok: false, errors };
   return {
     ok: true,
     value: {
@@ -82,7 +89,7 @@ export function validateScenarioContent(
       model: model.data,
       initial: shape.data.initial as Record<string, number>,
       horizon: shape.data.horizon,
-      publicParameters: bounds,
+      publicParameters: shape.data.publicParameters ?? [],
     },
   };
 }
@@ -125,18 +132,20 @@ export interface ScenarioExport {
 /** Validates an export file for import; pointers into the file (`/scenario/model/levels/1`). */
 export function validateScenarioExport(value: unknown): ValidationResult<ScenarioExport> {
   const shape = scenarioExportSchema.safeParse(value);
-  if (!shape.success) {
-    const errors = issuesFromZod(shape.error);
-    // Report the content's issues too, so one import attempt lists every error.
-    const inner =
-      value && typeof value === 'object' && 'scenario' in value
-        ? validateScenarioContent((value as { scenario: unknown }).scenario, ['scenario'])
-        : undefined;
-    return { ok: false, errors: inner && !inner.ok ? [...errors, ...inner.errors] : errors };
-  }
-  const content = validateScenarioContent(shape.data.scenario, ['scenario']);
-  if (!content.ok) return content;
-  return { ok: true, value: { ...shape.data, scenario: content.value } as ScenarioExport };
+  // The content's issues are reported with the file's, so one import attempt lists every error.
+  const scenario =
+    value !== null && typeof value === 'object'
+      ? (value as { scenario?: unknown }).scenario
+      : undefined;
+  const inner = validateScenarioContent(scenario, ['scenario']);
+  const own = shape.success ? [] : issuesFromZod(shape.error);
+  const errors = [
+    // A missing or malformed `scenario` is said once, by the content's own check.
+    ...(inner.ok ? own : own.filter((e) => e.pointer !== '/scenario')),
+    ...(inner.ok ? [] : inner.errors),
+  ];
+  if (!shape.success || !inner.ok) return { ok: false, errors };
+  return { ok: true, value: { ...shape.data, scenario: inner.value } as ScenarioExport };
 }
 
 /** Builds the export file of one version's content. */

@@ -144,8 +144,27 @@ describe('scenario versions over HTTP (keys and sessions)', () => {
     bad.scenario.horizon = 'long';
     const refused = await h.call('post', '/scenario-imports', h.demo.serverKey).send(bad);
     expect(refused.status).toBe(400);
+    // Every error at once: the file's, the content's shape, and the model inside it.
     expect(refused.body.errors.map((e: { pointer: string }) => e.pointer)).toEqual(
-      expect.arrayContaining(['/formatVersion', '/scenario/horizon']),
+      expect.arrayContaining([
+        '/formatVersion',
+        '/scenario/horizon',
+        '/scenario/model/levels/1/attackRate',
+      ]),
+    );
+    // With a valid model, the start and the public ranges are checked against it too.
+    const second = structuredClone(file.body);
+    second.scenario.name = '';
+    second.scenario.initial.deer = -2;
+    second.scenario.publicParameters = [{ pointer: '/levels/1/mortality', min: 0.2, max: 2e13 }];
+    const all = await h.call('post', '/scenario-imports', h.demo.serverKey).send(second);
+    expect(all.status).toBe(400);
+    expect(all.body.errors.map((e: { pointer: string }) => e.pointer)).toEqual(
+      expect.arrayContaining([
+        '/scenario/name',
+        '/scenario/initial/deer',
+        '/scenario/publicParameters/0/max',
+      ]),
     );
   });
 

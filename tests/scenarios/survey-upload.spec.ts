@@ -18,6 +18,14 @@ const MALFORMED: [string, string, number, number, RegExp][] = [
   ['wrong delimiter', 'time;heather;deer\n0;1;2\n', 1, 1, /separated by commas/],
   ['empty', '', 1, 1, /empty/],
   ['short row', 'time,heather,deer\n0,1\n', 2, 3, /expected 3 columns, found 2/],
+  // Past the 2000 rows a calibration reads (the byte limit is the 413 case below).
+  [
+    'too many rows',
+    `time,deer\n${Array.from({ length: 2001 }, (_, i) => `${i},5`).join('\n')}\n`,
+    2002,
+    1,
+    /at most 2000 rows/,
+  ],
 ];
 
 describe('survey CSV upload', () => {
