@@ -16,9 +16,9 @@ export {
 export type {
   /** The pool: runSweep, runRegimeMap, runEnsemble, runComparison, runRegime, close. */
   AnalysisPool,
-  /** `{ size, chunksPerWorker? }`. */
+  /** `{ size, chunksPerWorker?, niceness? }`. */
   AnalysisPoolOptions,
-  /** `{ onProgress?, signal? }`. */
+  /** `{ onProgress?, signal?, owner?, priority? }`. */
   AnalysisRunOptions,
   /** A sweep's points and counters. */
   SweepResult,
