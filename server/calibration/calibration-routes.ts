@@ -1,6 +1,11 @@
 import { Router, type Request } from 'express';
 import type { Knex } from 'knex';
-import { validateCalibrationRequest, type ChainModel, type ValidationIssue } from '@tropline/core';
+import {
+  publicBoundsIssues,
+  validateCalibrationRequest,
+  type ChainModel,
+  type ValidationIssue,
+} from '@tropline/core';
 import type { KeyPrincipal } from '../auth/key-principal';
 import { ProblemError, validationProblem } from '../http/problem';
 import { isFinished, streamJobEvents } from '../jobs/job-events';
@@ -178,15 +183,35 @@ export function calibrationRoutes(
       initial: Record<string, number>;
       estimates: { pointer: string; value: number }[];
     };
+    const body = (req.body ?? {}) as Record<string, unknown>;
+    const extra = Object.keys(body).filter((k) => !['changeNote', 'publicParameters'].includes(k));
+    if (extra.length) {
+      throw validationProblem(
+        extra.map((k) => ({ pointer: `/${k}`, message: `unknown field "${k}"` })),
+      );
+    }
     const actor = actorOf(req);
     const base = await scenarios.requireVersion(
       actor,
       result.source.scenarioId,
       result.source.scenarioVersion,
     );
+    // The version's public ranges must hold the fitted values; if one does not, the caller
+    // sends ranges that do (the publisher's choice is never widened behind their back).
+    if (!('publicParameters' in body)) {
+      const outside = publicBoundsIssues(result.model, base.content.publicParameters);
+      if (outside.length) {
+        throw validationProblem(
+          outside.map((e) => ({
+            ...e,
+            message: `${e.message} (the fitted model); send publicParameters whose ranges hold it`,
+          })),
+        );
+      }
+    }
     const note =
-      typeof req.body?.changeNote === 'string' && req.body.changeNote.trim()
-        ? req.body.changeNote
+      typeof body.changeNote === 'string' && body.changeNote.trim()
+        ? body.changeNote
         : `Calibrated to dataset version ${result.source.dataset} (` +
           result.estimates
             .map((e) => `${e.pointer} = ${Number(e.value.toPrecision(4))}`)
@@ -200,6 +225,9 @@ export function calibrationRoutes(
         ...base.content,
         model: result.model,
         initial: result.initial,
+        ...('publicParameters' in body
+          ? { publicParameters: body.publicParameters as typeof base.content.publicParameters }
+          : {}),
       },
     );
     res

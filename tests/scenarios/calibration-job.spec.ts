@@ -89,4 +89,44 @@ describe('calibration as a job over HTTP', () => {
       '/model/levels/1/mortality',
     ]);
   });
+
+  it('keeps the public ranges only when they hold the fitted values, else asks for new ones', async () => {
+    const v1 = await h.call('get', `/scenarios/${MOOR.id}/versions/1`, h.demo.serverKey);
+    const content = structuredClone(v1.body.content);
+    content.model.levels[1].attackRate = 0.1;
+    content.publicParameters = [{ pointer: '/levels/1/attackRate', min: 0.09, max: 0.2 }];
+    const draft = await h
+      .call('post', `/scenarios/${MOOR.id}/versions`, h.demo.serverKey)
+      .send({ ...content, changeNote: 'Public attack rate from 0.09' })
+      .expect(201);
+    const created = await h
+      .call('post', `/scenarios/${MOOR.id}/calibrations`, h.demo.serverKey)
+      .send({
+        dataset: 1,
+        scenarioVersion: draft.body.version.version,
+        parameters: [{ pointer: '/levels/1/attackRate', min: 0.01, max: 1 }],
+        starts: 1,
+      })
+      .expect(202);
+    const job = await finished(created.body.id);
+    expect(job.status, JSON.stringify(job.error)).toBe('succeeded');
+    // The truth is 0.08, outside the range [0.09, 0.2] the draft lets the public use.
+    expect(job.result.estimates[0].value).toBeLessThan(0.09);
+    const refused = await h
+      .call('post', `/calibrations/${created.body.id}/versions`, h.demo.serverKey)
+      .send({})
+      .expect(400);
+    expect(refused.body.errors[0].pointer).toBe('/publicParameters/0/min');
+    expect(refused.body.errors[0].message).toMatch(/fitted model.*send publicParameters/);
+    const ranges = [{ pointer: '/levels/1/attackRate', min: 0.05, max: 0.2 }];
+    const saved = await h
+      .call('post', `/calibrations/${created.body.id}/versions`, h.demo.serverKey)
+      .send({ publicParameters: ranges })
+      .expect(201);
+    const stored = await h
+      .call('get', `/scenarios/${MOOR.id}/versions/${saved.body.version.version}`, h.demo.serverKey)
+      .expect(200);
+    expect(stored.body.content.publicParameters).toEqual(ranges);
+    expect(stored.body.content.model.levels[1].attackRate).toBe(job.result.estimates[0].value);
+  });
 });
