@@ -9,10 +9,6 @@ export {
   /** The piscina worker pool the server runs analyses on. */
   createAnalysisPool,
 } from './pool/analysis-pool';
-export {
-  /** Lowers a worker thread's own scheduling priority (Linux), for the server's pools. */
-  lowerThreadPriority,
-} from './pool/thread-priority';
 export type {
   /** The pool: runSweep, runRegimeMap, runEnsemble, runComparison, runRegime, close. */
   AnalysisPool,
