@@ -59,7 +59,30 @@ describe('console: an analyst edits a scenario, compares versions and runs every
           .join(' '),
       described,
     );
-    expect(under).toMatch(/at most 2000/);
+    expect(under).toMatch(/Must be at most 2000/);
+
+    // A growth rate of zero is refused (the model needs it above zero): the summary names the
+    // parameter-form field and its link puts the focus in that field of the library's form.
+    const growth = page
+      .locator('tropline-parameter-form fieldset')
+      .first()
+      .getByRole('spinbutton', { name: /Growth rate/ });
+    await growth.fill('0');
+    await growth.press('Tab');
+    await page.getByRole('button', { name: 'Save as version 2' }).click();
+    const link = summary.getByRole('link', { name: /^Heather.*Growth rate.*: Enter a value from/ });
+    await link.waitFor();
+    await link.press('Enter');
+    await expect
+      .poll(() =>
+        page.evaluate(() => {
+          const el = document.activeElement as HTMLInputElement;
+          return `${!!el.closest('tropline-parameter-form')} ${el.type} ${el.value}`;
+        }),
+      )
+      .toBe('true number 0');
+    await growth.fill('0.8');
+    await growth.press('Tab');
 
     // Correct it, rename the wolves' level, move a start and a parameter, say why, and save.
     await horizon.fill('60');

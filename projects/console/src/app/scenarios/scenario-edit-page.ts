@@ -301,7 +301,7 @@ export class ScenarioEditPage {
     const model = latest.content!.model;
     const shown = found.map((f) => ({
       ...f,
-      message: capital(f.message),
+      message: fieldMessage(f),
       target: fieldTarget(f.pointer, model),
     }));
     for (const p of shown) {
@@ -335,6 +335,17 @@ export class ScenarioEditPage {
   protected scenario(): Scenario | undefined {
     return this.data.value()?.scenario;
   }
+}
+
+/**
+ * A contract message as it reads beside its field: without the field's own name in front
+ * ("growthRate must be greater than zero" → "Must be greater than zero").
+ */
+function fieldMessage(f: FieldProblem): string {
+  const name = f.pointer.split('/').at(-1) ?? '';
+  const rest =
+    name && f.message.startsWith(name + ' ') ? f.message.slice(name.length + 1) : f.message;
+  return capital(rest);
 }
 
 function capital(s: string): string {

@@ -107,13 +107,16 @@ describe('scenario editor form', () => {
     });
   });
 
-  it('lets the parameter form move every parameter from zero to ten times its value', () => {
+  it('lets the parameter form go to zero only where the contract allows zero', () => {
     const bounds = editingBounds(content.model);
+    const of = (pointer: string) => bounds.find((b) => b.pointer === pointer);
     expect(bounds.length).toBe(parameterFields(content.model).length);
-    expect(bounds.find((b) => b.pointer === '/levels/0/carryingCapacity')).toEqual({
+    // Capacity must stay above zero (chain-model schema); mortality may be zero.
+    expect(of('/levels/0/carryingCapacity')).toEqual({
       pointer: '/levels/0/carryingCapacity',
-      min: 0,
+      min: 5,
       max: 5000,
     });
+    expect(of('/levels/1/mortality')).toEqual({ pointer: '/levels/1/mortality', min: 0, max: 3 });
   });
 });

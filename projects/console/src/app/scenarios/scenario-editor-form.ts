@@ -3,6 +3,7 @@ import {
   parameterPointers,
   getParameter,
   validateScenarioContent,
+  withParameter,
   type ChainModel,
 } from '@tropline/core';
 import { parameterGroups, type ParameterBounds } from '@tropline/widgets';
@@ -164,14 +165,26 @@ export function parameterFields(model: ChainModel): { pointer: string; label: st
 }
 
 /**
- * How far the analyst may move each parameter in the parameter form: from zero to ten times
- * the saved value (or 0–1 for a parameter now at zero). The contract's own rules (rates above
- * zero, …) are checked on save and shown beside the field.
+ * How far the analyst may move each parameter in the parameter form: up to ten times the saved
+ * value (1 for a parameter now at zero), down to zero where the contract allows zero (mortality,
+ * handling time, harvest) and to a hundredth of the value where it must stay above zero (growth,
+ * capacity, attack rate, efficiency): the form then refuses what the model would refuse.
  */
 export function editingBounds(model: ChainModel): ParameterBounds[] {
   return parameterPointers(model).map((pointer) => {
     const value = getParameter(model, pointer);
-    return { pointer, min: 0, max: value > 0 ? Number((value * 10).toPrecision(3)) : 1 };
+    const round = (x: number) => Number(x.toPrecision(2));
+    let zeroAllowed = true;
+    try {
+      withParameter(model, pointer, 0);
+    } catch {
+      zeroAllowed = false;
+    }
+    return {
+      pointer,
+      min: zeroAllowed ? 0 : value > 0 ? round(value / 100) : 1e-3,
+      max: value > 0 ? Number((value * 10).toPrecision(3)) : 1,
+    };
   });
 }
 
