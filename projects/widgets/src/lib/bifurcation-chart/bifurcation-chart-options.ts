@@ -1,6 +1,7 @@
 import type { EChartsCoreOption } from 'echarts/core';
 import type { Regime, SweepResult } from '../api/analysis-types';
 import { DEFAULT_TROPLINE_STRINGS, type TroplineStrings } from '../api/tropline-strings';
+import { axisStyle } from '../chart-figure/axis-style';
 import type { ChartTable } from '../chart-figure/chart-export';
 
 /** Marker shape per regime, so the legend does not rely on colour. */
@@ -127,7 +128,7 @@ export function bifurcationChartOptions(
       markLine: {
         silent: true,
         symbol: 'none',
-        lineStyle: { color: text, type: 'solid', width: 1.5 },
+        lineStyle: { color: text, type: [6, 3], width: 2 },
         label: {
           color: text,
           formatter: `${strings.currentValue}: ${fmt.format(settings.current)}`,
@@ -155,6 +156,7 @@ export function bifurcationChartOptions(
       nameGap: 30,
       nameTextStyle: { color: text },
       axisLabel: { color: text, formatter: (v: number) => fmt.format(v) },
+      ...axisStyle(text),
       min: Math.min(...values),
       max: Math.max(...values),
     },
@@ -163,6 +165,7 @@ export function bifurcationChartOptions(
       name: settings.axes.observed,
       nameTextStyle: { color: text },
       axisLabel: { color: text, formatter: (v: number) => fmt.format(v) },
+      ...axisStyle(text),
       scale: true,
     },
     series,

@@ -84,7 +84,8 @@ export class ChartFigure {
       let read: unknown;
       const check = () => {
         const option = untracked(this.option);
-        if (chart.isDisposed() || option === read) return;
+        // While loading the chart holds a placeholder option; only the real one counts.
+        if (chart.isDisposed() || option === read || untracked(this.loading)) return;
         read = option;
         const drawn = (chart.getOption() as { animation?: unknown } | undefined)?.animation;
         this.drawnAnimation.set(drawn === false ? 'off' : 'on');

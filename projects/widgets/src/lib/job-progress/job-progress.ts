@@ -33,6 +33,11 @@ import { TROPLINE_STRINGS } from '../api/tropline-strings';
     mat-progress-bar {
       flex: 1;
     }
+    /* The focus ring of theme/_focus.scss (inline styles here are plain CSS). */
+    button:focus-visible {
+      outline: 3px solid var(--mat-sys-primary, #1b6a5e);
+      outline-offset: 2px;
+    }
     .tropline-job-progress__text {
       margin: 4px 0 0;
       font: var(--mat-sys-body-small);

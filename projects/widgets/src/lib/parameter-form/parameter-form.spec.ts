@@ -2,6 +2,7 @@ import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { ChangeDetectionStrategy, Component, signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { type ChainModel, LAKE_DEMO } from '@tropline/core';
+import { MatSliderHarness } from '@angular/material/slider/testing';
 import { ParameterFormHarness, provideTroplineTesting } from '@tropline/widgets/testing';
 import { ParameterForm } from './parameter-form';
 import type { ParameterBounds } from './parameter-form-schema';
@@ -29,8 +30,9 @@ describe('ParameterForm', () => {
     TestBed.configureTestingModule({ imports: [Host], providers: [provideTroplineTesting()] });
     const fixture = TestBed.createComponent(Host);
     await fixture.whenStable();
-    const form = await TestbedHarnessEnvironment.loader(fixture).getHarness(ParameterFormHarness);
-    return { fixture, form };
+    const loader = TestbedHarnessEnvironment.loader(fixture);
+    const form = await loader.getHarness(ParameterFormHarness);
+    return { fixture, form, loader };
   }
 
   it('groups by level and opens only what the publisher allowed', async () => {
@@ -55,6 +57,22 @@ describe('ParameterForm', () => {
     await form.setValue('Carrying capacity K', '75');
     expect(await form.getErrors()).toEqual(['Must be at most 60 g C m⁻².']);
     expect(fixture.componentInstance.emitted.length).toBe(count);
+  });
+
+  it('keeps each slider and its numeric field at the same value, whichever moves', async () => {
+    const { fixture, form, loader } = await setup();
+    const thumb = await (await loader.getHarness(MatSliderHarness)).getEndThumb();
+    const field = (fixture.nativeElement as HTMLElement).querySelector<HTMLInputElement>(
+      'input[type="number"]',
+    )!;
+    await form.setValue('Carrying capacity K', '55');
+    expect(await thumb.getValue()).toBe(55);
+    await thumb.setValue(25);
+    await fixture.whenStable();
+    expect(field.value).toBe('25');
+    expect(fixture.componentInstance.emitted.at(-1)!.levels[0]).toMatchObject({
+      carryingCapacity: 25,
+    });
   });
 
   it('resets to the published values', async () => {

@@ -1,12 +1,12 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input, output } from '@angular/core';
-import { outputFromObservable, toObservable } from '@angular/core/rxjs-interop';
+import { outputFromObservable, toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
 import { MatError, MatFormField, MatHint, MatLabel, MatSuffix } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
 import { MatSlider, MatSliderThumb } from '@angular/material/slider';
 import type { ChainModel } from '@tropline/core/contract';
-import { filter, map, switchMap } from 'rxjs';
+import { filter, map, startWith, switchMap } from 'rxjs';
 import { TROPLINE_OPTIONS } from '../api/tropline-options';
 import { TROPLINE_STRINGS } from '../api/tropline-strings';
 import {
@@ -76,6 +76,22 @@ export class ParameterForm {
     }
     return new FormGroup(controls);
   });
+  /**
+   * The form's values as they change. The slider follows them and writes through `slide()`:
+   * two inputs bound to one FormControl do not update each other (a view's change reaches the
+   * model only), so the slider and its numeric field would drift apart.
+   */
+  protected readonly values = toSignal(
+    toObservable(this.form).pipe(
+      switchMap((form) =>
+        form.valueChanges.pipe(
+          startWith(null),
+          map(() => form.getRawValue() as Values),
+        ),
+      ),
+    ),
+    { initialValue: {} as Values },
+  );
   private readonly numbers = new Intl.NumberFormat(this.options.locale, {
     maximumSignificantDigits: 6,
   });
@@ -113,6 +129,13 @@ export class ParameterForm {
   }
 
   protected readonly display = (value: number): string => this.numbers.format(value);
+
+  /** A slider moved: the value goes to its control, and from there to the numeric field. */
+  protected slide(key: string, value: number): void {
+    const control = this.form().controls[key];
+    control?.setValue(value);
+    control?.markAsDirty();
+  }
 
   protected reset(): void {
     this.form().reset(this.published());

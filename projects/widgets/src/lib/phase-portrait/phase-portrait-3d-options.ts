@@ -133,6 +133,34 @@ const FAR_EDGES: readonly [number, number][] = [
   [6, 7],
 ];
 
+/**
+ * Where an axis is labelled: the middle of whichever of the box's four edges along it lies
+ * farthest from the centre on screen (an outline edge, so the label stays clear of the
+ * drawing); the edge through the origin when several are as far.
+ */
+function labelPlace(axis: number, screen: (unit: Vec3) => number[]): number[] {
+  let best: number[] = [];
+  let reach = -1;
+  for (const [a, b] of [
+    [0, 0],
+    [1, 0],
+    [0, 1],
+    [1, 1],
+  ] as const) {
+    const mid: [number, number, number] = [a, a, a];
+    mid[axis] = 0.5;
+    mid[(axis + 1) % 3] = a;
+    mid[(axis + 2) % 3] = b;
+    const at = screen(mid);
+    const d = at[0]! ** 2 + at[1]! ** 2;
+    if (d > reach + 1e-9) {
+      reach = d;
+      best = at;
+    }
+  }
+  return best;
+}
+
 /** Half the box's diagonal in unit coordinates: no view projects the box beyond it. */
 const REACH = Math.sqrt(3) / 2;
 
@@ -202,17 +230,28 @@ export function phasePortrait3dOptions(
   const cut = transientCut(data.times, settings.transientEnd);
   const edges = (list: readonly [number, number][]) =>
     list.flatMap(([a, b]) => [screen(CORNERS[a]!), screen(CORNERS[b]!), [null, null]]);
+  const labelFmt = new Intl.NumberFormat(settings.locale, { maximumSignificantDigits: 3 });
+  const origin = screen([0, 0, 0]);
   const axisLabels = [0, 1, 2].map((axis) => {
-    const end: [number, number, number] = [0, 0, 0];
-    end[axis] = 1.12;
     const s = [xs, ds, ys][axis]!;
+    const at = labelPlace(axis, screen);
+    // Beside the middle of the box's outermost edge along the axis, on its outer side.
+    const position =
+      Math.abs(at[0]!) >= Math.abs(at[1]!)
+        ? at[0]! >= 0
+          ? 'right'
+          : 'left'
+        : at[1]! >= 0
+          ? 'top'
+          : 'bottom';
     return {
-      value: screen(end),
-      name: `${s.name}\n0–${fmt.format(top[axis]!)} ${formatUnit(s.unit)}`,
+      value: at,
+      name: `${s.name}\n0–${labelFmt.format(top[axis]!)} ${formatUnit(s.unit)}`,
+      label: { position, distance: 6 },
     };
   });
   // Equal units across and up, whatever the chart's shape; the box fits in any view.
-  const half = REACH * 1.18;
+  const half = REACH * 1.06;
   const wide = Math.max(1, settings.aspect);
   const tall = Math.max(1, 1 / settings.aspect);
   const hidden = { show: false };
@@ -286,7 +325,7 @@ export function phasePortrait3dOptions(
           formatter: (p: { name: string }) => p.name,
           lineHeight: 16,
         },
-        data: [...axisLabels, { value: screen([0, 0, 0]), name: '0' }],
+        data: [...axisLabels, { value: origin, name: '0', label: { position: 'bottom' } }],
       },
       trajectory('transient', strings.transient, 0, cut + 1, true),
       trajectory('long-run', strings.longRun, cut, points.length, false),

@@ -6,6 +6,7 @@ import type {
 } from '@tropline/core/contract';
 import type { EChartsCoreOption } from 'echarts/core';
 import { DEFAULT_TROPLINE_STRINGS, type TroplineStrings } from '../api/tropline-strings';
+import { axisStyle } from '../chart-figure/axis-style';
 import type { ChartTable } from '../chart-figure/chart-export';
 import type {
   TrajectoryData,
@@ -192,6 +193,7 @@ export function phasePortraitOptions(
       nameGap: 30,
       nameTextStyle: { color: text },
       axisLabel: { color: text, formatter: (v: number) => fmt.format(v) },
+      ...axisStyle(text),
       min: 0,
     },
     yAxis: {
@@ -199,6 +201,7 @@ export function phasePortraitOptions(
       name: `${ys.name} (${formatUnit(ys.unit)})`,
       nameTextStyle: { color: text },
       axisLabel: { color: text, formatter: (v: number) => fmt.format(v) },
+      ...axisStyle(text),
       min: 0,
     },
     series: [

@@ -2,6 +2,7 @@ import type { ChainModel } from '@tropline/core/contract';
 import type { EChartsCoreOption } from 'echarts/core';
 import type { ComparisonResult } from '../api/analysis-types';
 import { DEFAULT_TROPLINE_STRINGS, type TroplineStrings } from '../api/tropline-strings';
+import { axisStyle } from '../chart-figure/axis-style';
 import type { ChartTable } from '../chart-figure/chart-export';
 import { formatUnit, LINE_DASHES } from '../trajectory-chart/trajectory-chart-format';
 
@@ -22,6 +23,15 @@ export interface ComparisonChartSettings {
   readonly locale: string;
   /** The wording in use. */
   readonly strings?: TroplineStrings;
+  /** Small multiples per row (default up to 3); fewer on a narrow chart. */
+  readonly columns?: number;
+  /** The chart's height in pixels, when known: the multiples are then laid out in pixels. */
+  readonly height?: number;
+}
+
+/** Rows of small multiples for `n` scenarios in `columns` columns. */
+export function comparisonRowCount(n: number, columns = Math.min(3, n)): number {
+  return Math.ceil(n / Math.max(1, Math.min(columns, n)));
 }
 
 /** A paragraph describing the comparison chart. */
@@ -95,12 +105,14 @@ export function comparisonChartOptions(
         nameGap: 30,
         nameTextStyle: { color: text },
         axisLabel,
+        ...axisStyle(text),
       },
       yAxis: {
         type: 'value',
         name: `${level.name} (${formatUnit(level.unit)})`,
         nameTextStyle: { color: text },
         axisLabel,
+        ...axisStyle(text),
       },
       series: result.scenarios.map((s, i) => ({
         id: `scenario-${i}`,
@@ -115,16 +127,22 @@ export function comparisonChartOptions(
     };
   }
   const n = result.scenarios.length;
-  const cols = Math.min(3, n);
-  const rows = Math.ceil(n / cols);
+  const cols = Math.max(1, Math.min(settings.columns ?? 3, n));
+  const rows = comparisonRowCount(n, cols);
+  // In pixels when the height is known: a legend band, then per row a title, the plot and its
+  // axis labels. Otherwise in percent of an unknown height.
+  const legend = 40;
+  const rowHeight = settings.height ? (settings.height - legend) / rows : undefined;
+  const rowTop = (r: number) =>
+    rowHeight ? `${legend + r * rowHeight + 4}px` : `${(r * 100) / rows + 7}%`;
   const grids = result.scenarios.map((_, i) => {
     const c = i % cols;
     const r = Math.floor(i / cols);
     return {
       left: `${(c * 100) / cols + 6}%`,
       width: `${100 / cols - 9}%`,
-      top: `${(r * 100) / rows + 14}%`,
-      height: `${100 / rows - 24}%`,
+      top: rowHeight ? `${legend + r * rowHeight + 28}px` : `${(r * 100) / rows + 14}%`,
+      height: rowHeight ? `${rowHeight - 64}px` : `${100 / rows - 24}%`,
     };
   });
   return {
@@ -138,12 +156,12 @@ export function comparisonChartOptions(
     title: result.scenarios.map((s, i) => ({
       text: s.name,
       left: grids[i]!.left,
-      top: `${(Math.floor(i / cols) * 100) / rows + 7}%`,
+      top: rowTop(Math.floor(i / cols)),
       textStyle: { color: text, fontSize: 13, fontWeight: 500 },
     })),
     grid: grids,
-    xAxis: grids.map((_, i) => ({ type: 'value', gridIndex: i, axisLabel })),
-    yAxis: grids.map((_, i) => ({ type: 'value', gridIndex: i, axisLabel })),
+    xAxis: grids.map((_, i) => ({ type: 'value', gridIndex: i, axisLabel, ...axisStyle(text) })),
+    yAxis: grids.map((_, i) => ({ type: 'value', gridIndex: i, axisLabel, ...axisStyle(text) })),
     series: result.scenarios.flatMap((s, i) =>
       model.levels.map((l, j) => ({
         id: `scenario-${i}-${l.id}`,

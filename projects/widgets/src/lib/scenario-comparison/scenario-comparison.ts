@@ -2,10 +2,12 @@ import {
   ChangeDetectionStrategy,
   Component,
   computed,
+  type ElementRef,
   inject,
   input,
   linkedSignal,
   signal,
+  viewChild,
 } from '@angular/core';
 import { MatButtonToggle, MatButtonToggleGroup } from '@angular/material/button-toggle';
 import type { ChainModel } from '@tropline/core/contract';
@@ -19,11 +21,13 @@ import { TROPLINE_STRINGS } from '../api/tropline-strings';
 import { CautionNotice } from '../caution-notice/caution-notice';
 import { ChartFigure } from '../chart-figure/chart-figure';
 import { injectChartPalette } from '../chart-figure/chart-palette';
+import { injectElementSize } from '../chart-figure/element-size';
 import { jobState } from '../job-strip/job-state';
 import { JobStrip } from '../job-strip/job-strip';
 import {
   type ComparisonLayout,
   comparisonChartOptions,
+  comparisonRowCount,
   comparisonTable,
   describeComparison,
 } from './scenario-comparison-options';
@@ -83,10 +87,26 @@ export class ScenarioComparison {
     const job = this.job();
     return this.result() ?? (job.kind === 'done' ? job.result : undefined);
   });
+  private readonly canvas = viewChild<ElementRef<HTMLElement>>('canvas');
+  private readonly canvasSize = injectElementSize(() => this.canvas()?.nativeElement);
+  /** Small multiples side by side: three on a wide chart, fewer as it narrows. */
+  private readonly columns = computed(() => {
+    const width = this.canvasSize().width;
+    return width === 0 || width >= 840 ? 3 : width >= 520 ? 2 : 1;
+  });
+  /** Rows beyond one get room of their own (as least height, so a host's height still holds). */
+  protected readonly minHeight = computed(() => {
+    const result = this.shown();
+    if (!result || this.shownLayout() === 'overlay') return null;
+    const rows = comparisonRowCount(result.scenarios.length, this.columns());
+    return rows > 1 ? 40 + rows * 190 : null;
+  });
+
   protected readonly chartOptions = computed(() => {
     const result = this.shown();
     if (!result) return {};
     const p = this.palette();
+    const height = this.canvasSize().height;
     return comparisonChartOptions(this.model(), result, {
       layout: this.shownLayout(),
       level: this.level(),
@@ -94,6 +114,8 @@ export class ScenarioComparison {
       textColor: p.text,
       locale: this.options.locale,
       strings: this.strings,
+      columns: this.columns(),
+      ...(height > 0 ? { height: Math.max(height, this.minHeight() ?? 0) } : {}),
     });
   });
   protected readonly summary = computed(() => {

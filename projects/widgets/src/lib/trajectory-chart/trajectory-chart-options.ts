@@ -1,5 +1,6 @@
 import type { EChartsCoreOption } from 'echarts/core';
 import { DEFAULT_TROPLINE_STRINGS, type TroplineStrings } from '../api/tropline-strings';
+import { axisStyle } from '../chart-figure/axis-style';
 import type { ChartTable } from '../chart-figure/chart-export';
 import { formatUnit, LINE_DASHES, POINT_SYMBOLS } from './trajectory-chart-format';
 
@@ -151,8 +152,9 @@ export function trajectoryChartOptions(
     position: i % 2 === 0 ? 'left' : 'right',
     offset: Math.floor(i / 2) * 56,
     axisLabel: { color: text, formatter: (v: number) => fmt.format(v) },
-    axisLine: { show: true },
-    splitLine: { show: i === 0 },
+    ...axisStyle(text),
+    axisLine: { ...axisStyle(text).axisLine, show: true },
+    splitLine: { ...axisStyle(text).splitLine, show: i === 0 },
     scale: !settings.logScale,
   }));
   const lines = data.series.flatMap((s, i) => {
@@ -291,6 +293,7 @@ export function trajectoryChartOptions(
       nameGap: 30,
       nameTextStyle: { color: text },
       axisLabel: { color: text, formatter: (v: number) => fmt.format(v) },
+      ...axisStyle(text),
       min: data.times[0],
       max: end,
     },
