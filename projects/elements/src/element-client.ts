@@ -1,8 +1,13 @@
 import { Injectable, InjectionToken, inject } from '@angular/core';
-import type { ProjectionRequestInput, ProjectionResponse } from '@tropline/core/contract';
+import type {
+  ChainModel,
+  ProjectionRequestInput,
+  ProjectionResponse,
+} from '@tropline/core/contract';
 import {
   type ComparisonRequest,
   type ComparisonResult,
+  type EquilibriaResponse,
   type JobView,
   type RegimeRequest,
   type RegimeResponse,
@@ -12,7 +17,13 @@ import {
   type TroplineApiError,
 } from '@tropline/widgets';
 import { type MonoTypeOperatorFunction, type Observable, tap } from 'rxjs';
-import { boundProjection, PUBLISHED_BINDING, PublishedScenarioApi } from './published-scenario';
+import {
+  boundEquilibria,
+  boundProjection,
+  boundRegime,
+  PUBLISHED_BINDING,
+  PublishedScenarioApi,
+} from './published-scenario';
 
 /** What an element reports as a DOM event when the API answers. */
 export type ElementResult =
@@ -70,8 +81,14 @@ export class ElementClient extends TroplineClient {
     return source.pipe(this.report((value) => ({ kind: 'projection', value })));
   }
 
+  /** Through the published route too, so the publisher's ranges hold for every analysis. */
   override regime(request: RegimeRequest): Observable<RegimeResponse> {
-    return super.regime(request).pipe(this.report((value) => ({ kind: 'regime', value })));
+    const source = boundRegime(this.published, this.binding, request) ?? super.regime(request);
+    return source.pipe(this.report((value) => ({ kind: 'regime', value })));
+  }
+
+  override equilibria(request: { readonly model: ChainModel }): Observable<EquilibriaResponse> {
+    return boundEquilibria(this.published, this.binding, request) ?? super.equilibria(request);
   }
 
   override sweep(request: SweepRequest): Observable<JobView<SweepResult>> {

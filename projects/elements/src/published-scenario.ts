@@ -1,14 +1,18 @@
 import { HttpClient, HttpErrorResponse, HttpHeaders } from '@angular/common/http';
 import { Injectable, InjectionToken, inject } from '@angular/core';
 import {
+  type ChainModel,
   getParameter,
   type ProjectionRequestInput,
   type ProjectionResponse,
   type ScenarioContent,
 } from '@tropline/core/contract';
 import {
+  type EquilibriaResponse,
   type ParameterBounds,
   problemMessage,
+  type RegimeRequest,
+  type RegimeResponse,
   TROPLINE_OPTIONS,
   type TroplineApiError,
 } from '@tropline/widgets';
@@ -125,16 +129,35 @@ export class PublishedScenarioApi {
     s: PublishedScenario,
     request: Pick<ProjectionRequestInput, 'model' | 'horizon' | 'samples'>,
   ): Observable<ProjectionResponse> {
-    const changes = whatIfChanges(s, request.model);
-    const body = {
-      changes,
+    return this.whatIf<ProjectionResponse>(s, 'projections', request.model, {
       ...(request.horizon !== undefined ? { horizon: request.horizon } : {}),
       ...(request.samples !== undefined ? { samples: request.samples } : {}),
-    };
+    });
+  }
+
+  /** The long-run regime of a what-if, from the published start (same checks as projections). */
+  regime(s: PublishedScenario, request: Pick<RegimeRequest, 'model'>): Observable<RegimeResponse> {
+    return this.whatIf<RegimeResponse>(s, 'regimes', request.model);
+  }
+
+  /** Every equilibrium of a what-if (same checks as projections). */
+  equilibria(s: PublishedScenario, request: { readonly model: ChainModel }) {
+    return this.whatIf<EquilibriaResponse>(s, 'equilibria', request.model);
+  }
+
+  private whatIf<T>(
+    s: PublishedScenario,
+    route: 'projections' | 'regimes' | 'equilibria',
+    model: ChainModel,
+    extra: Record<string, number> = {},
+  ): Observable<T> {
+    const changes = whatIfChanges(s, model);
     return this.http
-      .post<ProjectionResponse>(`${this.url(s.publicId)}/projections`, body, {
-        headers: this.headers(),
-      })
+      .post<T>(
+        `${this.url(s.publicId)}/${route}`,
+        { changes, ...extra },
+        { headers: this.headers() },
+      )
       .pipe(
         catchError((err: unknown) =>
           throwError(() => namedRefusal(s, changes, this.refusal(s.publicId, err))),
@@ -189,4 +212,33 @@ export function boundProjection(
 ): Observable<ProjectionResponse> | undefined {
   const s = binding?.published();
   return s ? api.project(s, request) : undefined;
+}
+
+/**
+ * A regime through the published route when bound to a published scenario and the request asks
+ * for nothing the route does not take (the published start, the engine's default spans);
+ * otherwise undefined (the caller uses the open regimes route).
+ */
+export function boundRegime(
+  api: PublishedScenarioApi,
+  binding: PublishedBinding | null,
+  request: RegimeRequest,
+): Observable<RegimeResponse> | undefined {
+  const s = binding?.published();
+  const { model, initial, ...spans } = request;
+  const sameStart =
+    s !== undefined &&
+    Object.keys(s.initial).length === Object.keys(initial).length &&
+    Object.entries(s.initial).every(([id, v]) => initial[id] === v);
+  return s && sameStart && !Object.keys(spans).length ? api.regime(s, { model }) : undefined;
+}
+
+/** Equilibria through the published route when bound to a published scenario. */
+export function boundEquilibria(
+  api: PublishedScenarioApi,
+  binding: PublishedBinding | null,
+  request: { readonly model: ChainModel },
+): Observable<EquilibriaResponse> | undefined {
+  const s = binding?.published();
+  return s ? api.equilibria(s, request) : undefined;
 }

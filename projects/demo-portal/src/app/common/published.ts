@@ -16,7 +16,9 @@ import {
   TroplineClient,
 } from '@tropline/widgets';
 import {
+  boundEquilibria,
   boundProjection,
+  boundRegime,
   PUBLISHED_BINDING,
   PublishedScenarioApi,
   type PublishedScenario,
@@ -54,9 +56,10 @@ export function readyScenario(state: PublishedState): PublishedScenario | undefi
 }
 
 /**
- * The widgets' client for a page bound to a published scenario: projections go through the
- * scenario's published route (the server holds the publisher's ranges), everything else to the
- * portal's client unchanged. A page provides it with {@link PUBLISHED_BINDING}.
+ * The widgets' client for a page bound to a published scenario: projections, regimes and
+ * equilibria go through the scenario's published routes (the server holds the publisher's
+ * ranges), jobs to the portal's client unchanged. A page provides it with
+ * {@link PUBLISHED_BINDING}.
  */
 @Injectable()
 export class PublishedProjectionClient implements Pick<
@@ -71,10 +74,10 @@ export class PublishedProjectionClient implements Pick<
     return boundProjection(this.api, this.binding, request) ?? this.portal.project(request);
   }
   equilibria(request: { readonly model: ChainModel }) {
-    return this.portal.equilibria(request);
+    return boundEquilibria(this.api, this.binding, request) ?? this.portal.equilibria(request);
   }
   regime(request: RegimeRequest) {
-    return this.portal.regime(request);
+    return boundRegime(this.api, this.binding, request) ?? this.portal.regime(request);
   }
   sweep(request: SweepRequest) {
     return this.portal.sweep(request);

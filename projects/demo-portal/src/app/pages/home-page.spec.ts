@@ -31,7 +31,7 @@ const MERE: PublishedScenario = {
 
 describe('HomePage', () => {
   it('projects the published mere through its published route, for screen readers too', async () => {
-    const sent: { publicId: string; changes: unknown }[] = [];
+    const sent: { route: string; publicId: string; changes: unknown }[] = [];
     TestBed.configureTestingModule({
       imports: [HomePage],
       providers: [
@@ -39,22 +39,28 @@ describe('HomePage', () => {
         provideRouter([]),
         {
           provide: PublishedScenarioApi,
-          // Loads the mere above; projects with the fake client the published model with the
-          // what-if applied, recording what the published route would have been sent.
+          // Loads the mere above; computes with the fake client the published model with the
+          // what-if applied, recording what each published route would have been sent.
           useFactory: () => {
             const fake = inject(TroplineClient);
+            const whatIf = (route: string, s: PublishedScenario, m: PublishedScenario['model']) => {
+              const changes = whatIfChanges(s, m);
+              sent.push({ route, publicId: s.publicId, changes });
+              return changes.reduce((m, c) => withParameter(m, c.pointer, c.value), s.model);
+            };
             return {
               load: (id: string) =>
                 of<PublishedState>({ kind: 'ready', scenario: { ...MERE, publicId: id } }),
-              project: (s: PublishedScenario, r: { model: PublishedScenario['model'] }) => {
-                const changes = whatIfChanges(s, r.model);
-                sent.push({ publicId: s.publicId, changes });
-                const model = changes.reduce(
-                  (m, c) => withParameter(m, c.pointer, c.value),
-                  s.model,
-                );
-                return fake.project({ model, initial: s.initial, horizon: s.horizon });
-              },
+              project: (s: PublishedScenario, r: { model: PublishedScenario['model'] }) =>
+                fake.project({
+                  model: whatIf('projections', s, r.model),
+                  initial: s.initial,
+                  horizon: s.horizon,
+                }),
+              equilibria: (s: PublishedScenario, r: { model: PublishedScenario['model'] }) =>
+                fake.equilibria({ model: whatIf('equilibria', s, r.model) }),
+              regime: (s: PublishedScenario, r: { model: PublishedScenario['model'] }) =>
+                fake.regime({ model: whatIf('regimes', s, r.model), initial: s.initial }),
             };
           },
         },
@@ -68,7 +74,17 @@ describe('HomePage', () => {
     const chart =
       await TestbedHarnessEnvironment.loader(fixture).getHarness(TrajectoryChartHarness);
     expect(await chart.getSummary()).toContain('Water flea (Daphnia pulex) ranges from');
-    expect(sent).toEqual([{ publicId: BRACKENLOW_MERE, changes: [] }]);
+    // The panel's projection, equilibria and regime all went to the published routes.
+    expect(sent).toHaveLength(3);
+    expect(sent).toEqual(
+      expect.arrayContaining(
+        ['projections', 'equilibria', 'regimes'].map((route) => ({
+          route,
+          publicId: BRACKENLOW_MERE,
+          changes: [],
+        })),
+      ),
+    );
     expect(fixture.nativeElement.textContent).toContain('The next 104 weeks');
   });
 });
