@@ -2,11 +2,9 @@
 import { mkdirSync } from 'node:fs';
 import { resolve } from 'node:path';
 import AxeBuilder from '@axe-core/playwright';
-import { type Browser, type BrowserContext, chromium, type Page } from 'playwright-core';
-import { afterAll, beforeAll, expect } from 'vitest';
-import { CHROMIUM_ARGS, ensureChromium } from './chromium';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { expect } from 'vitest';
 import { localOnlyContext } from './local-only-context';
-import { type ServedApp, serveForBrowser } from './served-app';
 
 /** Where the console journeys leave their screenshots (git-ignored). */
 export const CONSOLE_ARTIFACTS = resolve(import.meta.dirname, '../artifacts/console');
@@ -73,23 +71,8 @@ export async function openFromNav(page: Page, label: string): Promise<void> {
   await page.getByRole('heading', { level: 1, name: label }).waitFor();
 }
 
-/**
- * Serves the product and starts Chromium around the enclosing `describe`, stopping both after
- * it; the getters read them inside the tests.
- */
-export function servedConsole(): { served: () => ServedApp; browser: () => Browser } {
-  let served: ServedApp | undefined;
-  let browser: Browser | undefined;
-  beforeAll(async () => {
-    served = await serveForBrowser();
-    browser = await chromium.launch({ executablePath: ensureChromium(), args: CHROMIUM_ARGS });
-  });
-  afterAll(async () => {
-    await browser?.close();
-    await served?.stop();
-  });
-  return { served: () => served!, browser: () => browser! };
-}
+/** The product served and Chromium started around the enclosing `describe` (served-app.ts). */
+export { servedBrowser as servedConsole } from './served-app';
 
 /** The accessible name of the focused element, roughly as a screen reader would say it. */
 export function focusedName(page: Page): Promise<string> {
@@ -154,7 +137,10 @@ export async function expectFocusVisible(page: Page, where: string): Promise<voi
     const field = el.closest('.mat-mdc-form-field');
     if (field)
       return field.classList.contains('mat-focused') ? '' : 'form field not marked focused';
-    const drawn = el.closest('.mat-mdc-checkbox, .mat-mdc-radio-button');
+    // Material draws these controls' ring on the control, around the focused native element.
+    const drawn = el.closest(
+      '.mat-mdc-checkbox, .mat-mdc-radio-button, mat-button-toggle, mat-slider',
+    );
     return ringed(el) || ringed(drawn)
       ? ''
       : `${el.tagName} "${el.textContent}" has no visible ring`;

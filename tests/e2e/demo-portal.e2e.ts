@@ -5,6 +5,7 @@ import { resolve } from 'node:path';
 import { type Browser, chromium, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CHROMIUM_ARGS, ensureChromium } from './chromium';
+import { collectErrors, paintedShare } from './chart-probes';
 import { localOnlyContext, type RequestLog } from './local-only-context';
 import { type ServedApp, serveForBrowser } from './served-app';
 
@@ -39,28 +40,6 @@ function growthOf(body: WhatIf): number | undefined {
 interface ProjectionAnswer {
   status: number;
   body: { series: Record<string, number[]> };
-}
-
-/** Share of a canvas's pixels that have been painted (not transparent). */
-async function paintedShare(page: Page, selector: string): Promise<number> {
-  const canvas = page.locator(selector).first();
-  await canvas.waitFor({ state: 'visible', timeout: 60_000 });
-  return canvas.evaluate((c: HTMLCanvasElement) => {
-    const { data } = c.getContext('2d')!.getImageData(0, 0, c.width, c.height);
-    let opaque = 0;
-    for (let i = 3; i < data.length; i += 4) if (data[i]! > 0) opaque++;
-    return opaque / (c.width * c.height);
-  });
-}
-
-/** Console errors and uncaught exceptions of a page. */
-function collectErrors(page: Page): string[] {
-  const errors: string[] = [];
-  page.on('console', (m) => {
-    if (m.type() === 'error') errors.push(m.text());
-  });
-  page.on('pageerror', (e) => errors.push(String(e)));
-  return errors;
 }
 
 describe('demo portal in Chromium', () => {

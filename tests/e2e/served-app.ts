@@ -2,8 +2,11 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { type Browser, chromium } from 'playwright-core';
+import { afterAll, beforeAll } from 'vitest';
 import { loadConfig } from '../../server/config';
 import { type RunningServer, serve } from '../../server/serve';
+import { CHROMIUM_ARGS, ensureChromium } from './chromium';
 
 /** A port the OS says is free now (the demo key's allowed origins must name the real port). */
 async function freePort(): Promise<number> {
@@ -44,4 +47,22 @@ export async function serveForBrowser(): Promise<ServedApp> {
       rmSync(dir, { recursive: true, force: true });
     },
   };
+}
+
+/**
+ * Serves the product and starts Chromium around the enclosing `describe`, stopping both after
+ * it; the getters read them inside the tests.
+ */
+export function servedBrowser(): { served: () => ServedApp; browser: () => Browser } {
+  let served: ServedApp | undefined;
+  let browser: Browser | undefined;
+  beforeAll(async () => {
+    served = await serveForBrowser();
+    browser = await chromium.launch({ executablePath: ensureChromium(), args: CHROMIUM_ARGS });
+  });
+  afterAll(async () => {
+    await browser?.close();
+    await served?.stop();
+  });
+  return { served: () => served!, browser: () => browser! };
 }
