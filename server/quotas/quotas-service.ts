@@ -105,8 +105,9 @@ export class QuotasService {
       at: new Date(nowMs).toISOString(),
     };
     this.prune(windowStart);
+    // Counted once per request (some routes admit twice: a metered guard, then the work).
     const opened = this.open.get(ticket.keyId) ?? 0;
-    if (opened >= OPEN_REQUESTS_PER_KEY[principal.kind]) {
+    if (!res.locals.openCounted && opened >= OPEN_REQUESTS_PER_KEY[principal.kind]) {
       // Refused before the ledger: nothing is counted, the headers show the counters as they are.
       const counters = this.counters(ticket);
       counters.catch(() => undefined);
@@ -119,12 +120,15 @@ export class QuotasService {
           }),
       } satisfies PendingAdmission;
     }
-    this.open.set(ticket.keyId, opened + 1);
-    res.once('close', () => {
-      const n = (this.open.get(ticket.keyId) ?? 1) - 1;
-      if (n > 0) this.open.set(ticket.keyId, n);
-      else this.open.delete(ticket.keyId);
-    });
+    if (!res.locals.openCounted) {
+      res.locals.openCounted = true;
+      this.open.set(ticket.keyId, opened + 1);
+      res.once('close', () => {
+        const n = (this.open.get(ticket.keyId) ?? 1) - 1;
+        if (n > 0) this.open.set(ticket.keyId, n);
+        else this.open.delete(ticket.keyId);
+      });
+    }
     const overlap = this.outlook.mayOverlap(ticket);
     this.outlook.sent(ticket);
     const outcome = this.ledger.write({ kind: 'admit', request: ticket }).then(
