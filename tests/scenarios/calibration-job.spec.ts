@@ -3,20 +3,12 @@ import { signInDemo } from '../../server/accounts/testing/signed-in-agent';
 import { DEMO_SCENARIOS } from '../../seeds/05-demo-scenarios';
 import { startHarness, type Harness } from '../api/api-harness';
 import { conformsToContract } from '../api/openapi-contract';
+import { MOOR_FIT } from './fit-requests';
 
 // The seeded Hobcairn Moor scenario and its synthetic dataset (seed 8102, log-normal σ = 0.15):
 // the truth is the scenario's own model (UPLAND_DEMO), which settles, so it is not chaotic.
 const MOOR = DEMO_SCENARIOS[1]!;
 const TRUTH: Record<string, number> = { '/levels/1/attackRate': 0.08, '/levels/1/mortality': 0.3 };
-const BODY = {
-  dataset: 1,
-  parameters: [
-    { pointer: '/levels/1/attackRate', min: 0.01, max: 1 },
-    { pointer: '/levels/1/mortality', min: 0.05, max: 1.5 },
-  ],
-  starts: 2,
-};
-
 describe('calibration as a job over HTTP', () => {
   let h: Harness;
   beforeAll(async () => {
@@ -50,7 +42,7 @@ describe('calibration as a job over HTTP', () => {
   it('recovers the truth within the reported standard errors and saves it as a version', async () => {
     const created = await h
       .call('post', `/scenarios/${MOOR.id}/calibrations`, h.demo.serverKey)
-      .send(BODY)
+      .send(MOOR_FIT)
       .expect(202);
     expect(created.headers.location).toBe(`/api/v1/calibrations/${created.body.id}`);
     const job = await finished(created.body.id);

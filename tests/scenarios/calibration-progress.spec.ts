@@ -9,31 +9,12 @@ import { TenantsService } from '../../server/tenants/tenants-service';
 import { DEMO_TENANT } from '../../seeds/01-demo-tenant';
 import { DEMO_SCENARIOS } from '../../seeds/05-demo-scenarios';
 import { startHarness, type Harness } from '../api/api-harness';
+import { longMereFit, MOOR_FIT } from './fit-requests';
 
 // The seeded scenarios: Brackenlow Mere (chaotic lake) and Hobcairn Moor (settles), each with
 // its synthetic dataset version 1.
 const MERE = DEMO_SCENARIOS[0]!.id;
 const MOOR = DEMO_SCENARIOS[1]!.id;
-const QUICK = {
-  dataset: 1,
-  parameters: [
-    { pointer: '/levels/1/attackRate', min: 0.01, max: 1 },
-    { pointer: '/levels/1/mortality', min: 0.05, max: 1.5 },
-  ],
-  starts: 2,
-};
-// Minutes of work: segmented, every start, every iteration (the test cancels it).
-const LONG = {
-  dataset: 1,
-  parameters: [
-    { pointer: '/levels/1/mortality', min: 0.4, max: 1.6 },
-    { pointer: '/levels/2/mortality', min: 0.005, max: 0.08 },
-  ],
-  segmentLength: 20,
-  starts: 8,
-  maxIterations: 200,
-};
-
 interface JobEvent {
   readonly id: string;
   readonly kind: string;
@@ -66,6 +47,24 @@ describe('calibration progress as Server-Sent Events for signed-in members, and 
     'x-csrf-token': who.csrf,
     'content-type': 'application/json',
   });
+
+  /** A job row as the job service stores one (queued, of `kind`), for a tenant. */
+  const storeJob = (id: string, tenantId: string, kind: string) =>
+    new JobsRepository(h.app.locals.tropline.db).insert({
+      id,
+      tenantId,
+      keyId: 'stored-by-test',
+      kind,
+      status: 'queued',
+      progress: 0,
+      requestHash: id.replaceAll('-', '').padEnd(64, '0'),
+      idempotencyKey: null,
+      request: {},
+      units: 1,
+      cancelRequested: false,
+      createdAt: new Date(h.clock.now()).toISOString(),
+      expiresAt: new Date(h.clock.now() + 3600_000).toISOString(),
+    });
 
   async function start(who: SignedInAgent, scenario: string, body: object): Promise<string> {
     const res = await fetch(`${base}/scenarios/${scenario}/calibrations`, {
@@ -109,7 +108,7 @@ describe('calibration progress as Server-Sent Events for signed-in members, and 
   }
 
   it("streams a member's calibration to its result, in the format of /jobs/{id}/events", async () => {
-    const id = await start(analyst, MOOR, QUICK);
+    const id = await start(analyst, MOOR, MOOR_FIT);
     const res = await fetch(`${base}/calibrations/${id}/events`, { headers: as(analyst) });
     expect(res.status).toBe(200);
     expect(res.headers.get('content-type')).toMatch(/^text\/event-stream/);
@@ -131,7 +130,7 @@ describe('calibration progress as Server-Sent Events for signed-in members, and 
   });
 
   it('cancels a running calibration: DELETE stops it and the stream ends on the cancellation', async () => {
-    const id = await start(analyst, MERE, LONG);
+    const id = await start(analyst, MERE, longMereFit());
     const res = await fetch(`${base}/calibrations/${id}/events`, { headers: as(analyst) });
     let cancel: Response | undefined;
     const { events } = await follow(res, async (e) => {
@@ -162,21 +161,7 @@ describe('calibration progress as Server-Sent Events for signed-in members, and 
     const { db } = h.app.locals.tropline;
     const fenwick = await new TenantsService(db, h.clock.now).create('fenwick', 'Fenwick Board');
     const theirs = randomUUID();
-    await new JobsRepository(db).insert({
-      id: theirs,
-      tenantId: fenwick.id,
-      keyId: 'fenwick-key1',
-      kind: 'calibrations',
-      status: 'running',
-      progress: 0.3,
-      requestHash: 'b'.repeat(64),
-      idempotencyKey: null,
-      request: {},
-      units: 5,
-      cancelRequested: false,
-      createdAt: new Date(h.clock.now()).toISOString(),
-      expiresAt: new Date(h.clock.now() + 3600_000).toISOString(),
-    });
+    await storeJob(theirs, fenwick.id, 'calibrations');
     for (const method of ['GET', 'DELETE']) {
       const path = method === 'GET' ? `/calibrations/${theirs}/events` : `/calibrations/${theirs}`;
       const res = await fetch(`${base}${path}`, { method, headers: as(analyst) });
@@ -192,7 +177,7 @@ describe('calibration progress as Server-Sent Events for signed-in members, and 
         'test',
       )
     ).token;
-    const ours = await start(analyst, MOOR, { ...QUICK, starts: 1 });
+    const ours = await start(analyst, MOOR, { ...MOOR_FIT, starts: 1 });
     const probe = await fetch(`${base}/calibrations/${ours}/events`, {
       headers: { authorization: `Bearer ${keyB}` },
     });
@@ -200,28 +185,14 @@ describe('calibration progress as Server-Sent Events for signed-in members, and 
     await follow(await fetch(`${base}/calibrations/${ours}/events`, { headers: as(analyst) }));
     // A job that is not a calibration is not one of these routes' objects.
     const other = randomUUID();
-    await new JobsRepository(db).insert({
-      id: other,
-      tenantId: DEMO_TENANT.id,
-      keyId: 'demo-key-xyz',
-      kind: 'sweeps',
-      status: 'queued',
-      progress: 0,
-      requestHash: 'c'.repeat(64),
-      idempotencyKey: null,
-      request: {},
-      units: 1,
-      cancelRequested: false,
-      createdAt: new Date(h.clock.now()).toISOString(),
-      expiresAt: new Date(h.clock.now() + 3600_000).toISOString(),
-    });
+    await storeJob(other, DEMO_TENANT.id, 'sweeps');
     const notOne = await fetch(`${base}/calibrations/${other}/events`, { headers: as(analyst) });
     expect(notOne.status).toBe(404);
   });
 
   it('refuses a viewer, whose role may not run analyses, before any stream', async () => {
     const viewer = await signInDemo(h.app, 'viewer');
-    const id = await start(analyst, MOOR, { ...QUICK, starts: 1, maxIterations: 5 });
+    const id = await start(analyst, MOOR, { ...MOOR_FIT, starts: 1, maxIterations: 5 });
     const res = await fetch(`${base}/calibrations/${id}/events`, { headers: as(viewer) });
     expect(res.status).toBe(403);
     const cancel = await fetch(`${base}/calibrations/${id}`, {

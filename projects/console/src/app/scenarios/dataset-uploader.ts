@@ -11,8 +11,9 @@ import { ScenariosApi } from './scenarios-api';
 import type { Dataset } from './scenario-types';
 
 /**
- * Uploads monitoring data: drop a CSV on the zone or pick one. A refused file shows every bad
- * cell with its line and column, as the server found them; nothing is stored until it is valid.
+ * Uploads monitoring data for one scenario version: drop a CSV on the zone or pick one. A
+ * refused file shows every bad cell with its line and column, as the server found them against
+ * that version's levels; nothing is stored until it is valid.
  */
 @Component({
   selector: 'tc-dataset-uploader',
@@ -25,8 +26,10 @@ export class DatasetUploader {
   private readonly api = inject(ScenariosApi);
   /** The scenario the data belong to. */
   readonly scenarioId = input.required<string>();
-  /** Level ids of the latest version: the columns the file may have. */
+  /** Level ids of the version the data are for: the columns the file may have. */
   readonly levels = input.required<readonly string[]>();
+  /** The scenario version the data are for (its header is checked against; default latest). */
+  readonly version = input<number | undefined>(undefined);
   /** Emits the stored dataset version. */
   readonly uploaded = output<Dataset>();
 
@@ -64,7 +67,12 @@ export class DatasetUploader {
     this.problem.set(undefined);
     this.stored.set(undefined);
     try {
-      const dataset = await this.api.upload(this.scenarioId(), file, this.note().trim());
+      const dataset = await this.api.upload(
+        this.scenarioId(),
+        file,
+        this.note().trim(),
+        this.version(),
+      );
       this.stored.set(dataset);
       this.uploaded.emit(dataset);
     } catch (err) {

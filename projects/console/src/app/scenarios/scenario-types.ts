@@ -64,6 +64,10 @@ export interface ScenarioSaved {
 /** One uploaded monitoring dataset version. */
 export interface Dataset {
   readonly version: number;
+  /** The scenario version the file was made for (its header checked against). */
+  readonly scenarioVersion: number;
+  /** Its level columns with their units in that version. */
+  readonly levels: readonly { readonly id: string; readonly unit: string }[];
   readonly filename: string;
   readonly rows: number;
   readonly sha256: string;
@@ -101,12 +105,19 @@ export interface CalibrationJob {
   readonly createdAt: string;
   readonly result?: {
     readonly estimates: readonly CalibrationEstimate[];
-    readonly fit: { readonly points: number; readonly rmse: number; readonly rSquaredLog: number };
+    readonly fit: {
+      readonly points: number;
+      readonly rmse: number;
+      readonly rSquaredLog: number;
+      readonly weightedRms?: number;
+    };
     readonly chaotic: boolean;
     readonly suggestedSegmentLength?: number;
+    /** Segmented fits: each segment's span. */
+    readonly segments?: readonly { readonly start: number; readonly end: number }[];
     readonly warnings: readonly string[];
   };
-  readonly error?: { readonly title?: string; readonly detail?: string };
+  readonly error?: { readonly type?: string; readonly title?: string; readonly detail?: string };
 }
 
 /** A parameter range to fit. */

@@ -1,6 +1,18 @@
-import { HttpClient } from '@angular/common/http';
+import { HttpClient, HttpEventType } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
-import { firstValueFrom, map } from 'rxjs';
+import { parseEventStream } from '@tropline/widgets';
+import {
+  concatMap,
+  defer,
+  EMPTY,
+  firstValueFrom,
+  from,
+  map,
+  repeat,
+  takeWhile,
+  timer,
+  type Observable,
+} from 'rxjs';
 import type {
   CalibrationJob,
   Dataset,
@@ -108,18 +120,28 @@ export class ScenariosApi {
     );
   }
 
-  /** Uploads a CSV as a new dataset version; a bad file rejects with per-cell errors. */
-  upload(id: string, file: File, changeNote: string): Promise<Dataset> {
+  /**
+   * Uploads a CSV as a new dataset version made for `scenarioVersion` (default the latest); a
+   * bad file rejects with per-cell errors.
+   */
+  upload(id: string, file: File, changeNote: string, scenarioVersion?: number): Promise<Dataset> {
     const form = new FormData();
     form.append('file', file, file.name);
     if (changeNote) form.append('changeNote', changeNote);
+    if (scenarioVersion !== undefined) form.append('scenarioVersion', String(scenarioVersion));
     return firstValueFrom(this.http.post<Dataset>(`${BASE}/scenarios/${enc(id)}/datasets`, form));
   }
 
   /** Starts a calibration job. */
   calibrate(
     id: string,
-    body: { dataset: number; scenarioVersion: number; parameters: FitRange[]; starts: number },
+    body: {
+      dataset: number;
+      scenarioVersion: number;
+      parameters: FitRange[];
+      starts: number;
+      segmentLength?: number;
+    },
   ): Promise<CalibrationJob> {
     return firstValueFrom(
       this.http.post<CalibrationJob>(`${BASE}/scenarios/${enc(id)}/calibrations`, body),
@@ -129,6 +151,43 @@ export class ScenariosApi {
   /** A calibration job as it stands. */
   calibration(jobId: string): Promise<CalibrationJob> {
     return firstValueFrom(this.http.get<CalibrationJob>(`${BASE}/calibrations/${enc(jobId)}`));
+  }
+
+  /**
+   * A calibration's updates as the server streams them (`GET /calibrations/{id}/events`: one
+   * `job` event per change, the last when it finishes), until it finishes. The stream runs on
+   * the member's session, so the interceptor's tenant header goes with it (an EventSource could
+   * not send it); one the server closes early (its 10-minute limit) is opened again.
+   */
+  calibrationEvents(jobId: string): Observable<CalibrationJob> {
+    const url = `${BASE}/calibrations/${enc(jobId)}/events`;
+    const once = defer(() => {
+      let text = '';
+      let consumed = 0;
+      return this.http
+        .get(url, { observe: 'events', reportProgress: true, responseType: 'text' })
+        .pipe(
+          concatMap((e) => {
+            if (e.type === HttpEventType.DownloadProgress) text = e.partialText ?? text;
+            else if (e.type === HttpEventType.Response) text = e.body ?? text;
+            else return EMPTY;
+            const parsed = parseEventStream(text.slice(consumed));
+            consumed += parsed.consumed;
+            const jobs = parsed.events.filter((ev) => ev.event === 'job');
+            return from(jobs.map((ev) => JSON.parse(ev.data) as CalibrationJob));
+          }),
+        );
+    });
+    const done = (j: CalibrationJob) => j.status === 'succeeded' || j.status === 'failed';
+    return once.pipe(
+      repeat({ delay: () => timer(0) }),
+      takeWhile((j) => !done(j), true),
+    );
+  }
+
+  /** Cancels a queued or running calibration; the job as it then stands. */
+  cancelCalibration(jobId: string): Promise<CalibrationJob> {
+    return firstValueFrom(this.http.delete<CalibrationJob>(`${BASE}/calibrations/${enc(jobId)}`));
   }
 
   /** Saves a succeeded calibration's fitted model as a new draft version. */
