@@ -41,6 +41,8 @@ export interface RegimeResponse {
   readonly predictabilityNote?: string;
   /** Ids of the levels that fell below their quasi-extinction threshold (collapse only). */
   readonly collapsedLevels?: readonly string[];
+  /** Why the verdict rests on weaker evidence than the exponent alone, when it does. */
+  readonly regimeNote?: string;
 }
 
 /** Body of `POST /sweeps` (a job). */

@@ -61,6 +61,27 @@ export interface TroplineStrings {
   readonly notLimited: string;
   /** Label of the cycle period. */
   readonly periodLabel: string;
+  /** An approximate duration, e.g. "about 186 years". */
+  readonly about: (duration: string) => string;
+  /** Name of the equilibrium with no level present. */
+  readonly everyLevelExtinct: string;
+  /** Title of a collapse naming the levels, e.g. "Pumpkinseed dies out". */
+  readonly collapseTitle: (levels: string, count: number) => string;
+  /** Sentence of a collapse naming the levels. */
+  readonly collapseSentence: (levels: string, count: number) => string;
+  /** Label of the levels that die out, each with its unit. */
+  readonly collapsedLabel: string;
+  /** A level that dies out, with its unit, e.g. "Pumpkinseed (g C m⁻²)". */
+  readonly levelWithUnit: (level: string, unit: string) => string;
+  /** Label of the note on weaker evidence behind a verdict. */
+  readonly regimeNoteLabel: string;
+  /** The engine's notes in plain words (a note not listed here is shown as the API wrote it). */
+  readonly regimeNote: {
+    /** Levels above their quasi-extinction threshold in the window, declining steadily. */
+    readonly dyingOut: (levels: string, count: number) => string;
+    /** Irregular peaks with a positive exponent still within its error. */
+    readonly shortWindow: string;
+  };
   /** Heading of the equilibria list. */
   readonly equilibriaHeading: string;
   /** Accessible name of the cautions. */
@@ -177,6 +198,24 @@ export const DEFAULT_TROPLINE_STRINGS: TroplineStrings = {
   horizonLabel: 'Predictability horizon',
   notLimited: 'not limited by chaos',
   periodLabel: 'Cycle period',
+  about: (duration) => `about ${duration}`,
+  everyLevelExtinct: 'Every level extinct',
+  collapseTitle: (levels, count) => `${levels} ${count === 1 ? 'dies' : 'die'} out`,
+  collapseSentence: (levels, count) =>
+    `In the long run ${levels} ${count === 1 ? 'falls' : 'fall'} toward zero, below ` +
+    `${count === 1 ? 'its' : 'their'} quasi-extinction threshold.`,
+  collapsedLabel: 'Dying out',
+  levelWithUnit: (level, unit) => `${level} (${unit})`,
+  regimeNoteLabel: 'Note',
+  regimeNote: {
+    dyingOut: (levels, count) =>
+      `${levels} ${count === 1 ? 'is' : 'are'} still above ${count === 1 ? 'its' : 'their'} ` +
+      'quasi-extinction threshold in the measured window, but declining steadily toward it; ' +
+      `${count === 1 ? 'its' : 'their'} rises and falls are not a cycle or chaos.`,
+    shortWindow:
+      'The peaks are irregular and the exponent is positive, but not yet beyond its error; ' +
+      'a longer measuring window would settle it.',
+  },
   equilibriaHeading: 'Equilibria',
   cautionsLabel: 'How to read this projection',
   resetToPublished: 'Reset to the published values',

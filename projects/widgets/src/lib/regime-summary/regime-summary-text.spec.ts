@@ -1,5 +1,14 @@
-import { findEquilibria, ROSENZWEIG_MACARTHUR, UPLAND_DEMO } from '@tropline/core';
+import {
+  assessRegime,
+  findEquilibria,
+  HASTINGS_POWELL_BENCHMARK,
+  LAKE_DEMO,
+  ROSENZWEIG_MACARTHUR,
+  UPLAND_DEMO,
+  withParameter,
+} from '@tropline/core';
 import type { RegimeResponse } from '../api/analysis-types';
+import { DEFAULT_TROPLINE_STRINGS } from '../api/tropline-strings';
 import { regimeSummaryText } from './regime-summary-text';
 
 const chaotic: RegimeResponse = {
@@ -45,5 +54,76 @@ describe('regimeSummaryText', () => {
     const interior = text.equilibria.at(-1)!;
     expect(interior.name).toContain(' and ');
     expect(interior.stability).toMatch(/(attracts nearby states|does not attract)$/);
+  });
+
+  // Hastings & Powell's chain at b1 = 1 (h1 = b1/a1 = 0.2) with d2 = 0.0172: the top predator
+  // cannot invade the predator-free equilibrium (invasion rate −0.00299 per time unit, derived in
+  // shared/regime/assess-regime.spec.ts), so it declines like e^{λt} yet stays far above its
+  // 1e-6 threshold over a 1000-unit window — the engine says collapse with its dying-out note.
+  it('names the level that dies out, with its unit, and says the dying-out note in words', () => {
+    const base = HASTINGS_POWELL_BENCHMARK;
+    const model = withParameter(
+      withParameter(base.model, '/levels/1/handlingTime', 0.2),
+      '/levels/2/mortality',
+      0.0172,
+    );
+    const regime = assessRegime(model, base.initial, { transient: 1000, window: 1000 });
+    expect(regime.regime).toBe('collapse');
+    expect(regime.collapsedLevels).toEqual(['z']);
+    expect(regime.regimeNote).toBeDefined();
+    const text = regimeSummaryText(model, regime, [], 'en');
+    expect(text.title).toBe('Top predator dies out');
+    expect(text.sentence).toBe(
+      'In the long run Top predator falls toward zero, below its quasi-extinction threshold.',
+    );
+    expect(text.facts[0]).toEqual({ label: 'Dying out', value: 'Top predator (dimensionless)' });
+    expect(text.facts.at(-1)).toEqual({
+      label: 'Note',
+      value:
+        'Top predator is still above its quasi-extinction threshold in the measured window, but ' +
+        'declining steadily toward it; its rises and falls are not a cycle or chaos.',
+    });
+  });
+
+  it('lists several collapsed levels in the locale and through the host strings', () => {
+    const collapse: RegimeResponse = {
+      regime: 'collapse',
+      lyapunovExponent: { value: -0.05, standardError: 0.002 },
+      collapsedLevels: ['daphnia', 'perch'],
+    };
+    const model = LAKE_DEMO.model;
+    const [, grazers, fish] = model.levels;
+    const en = regimeSummaryText(model, collapse, [], 'en');
+    expect(en.title).toBe(`${grazers!.name} and ${fish!.name} die out`);
+    expect(en.facts[0]!.value).toContain(`${fish!.name} (`);
+    expect(en.facts.some((f) => f.label === 'Note')).toBe(false);
+    const de = regimeSummaryText(model, collapse, [], 'de', {
+      ...DEFAULT_TROPLINE_STRINGS,
+      collapseTitle: (levels, count) => `${levels} ${count === 1 ? 'stirbt' : 'sterben'} aus`,
+    });
+    expect(de.title).toBe(`${grazers!.name} und ${fish!.name} sterben aus`);
+  });
+
+  it('says the short-window note in words and shows a note it does not know as written', () => {
+    // The note as shared/regime/classify-regime.ts (IRREGULAR_NOTE) writes it.
+    const irregular =
+      'irregular maxima with a positive exponent not yet beyond its error; a longer window settles it';
+    const short = regimeSummaryText(
+      UPLAND_DEMO.model,
+      { ...chaotic, regimeNote: irregular },
+      [],
+      'en',
+    );
+    expect(short.facts.at(-1)).toEqual({
+      label: 'Note',
+      value: DEFAULT_TROPLINE_STRINGS.regimeNote.shortWindow,
+    });
+    const other = regimeSummaryText(
+      UPLAND_DEMO.model,
+      { ...chaotic, regimeNote: 'a new note' },
+      [],
+      'en',
+    );
+    expect(other.facts.at(-1)!.value).toBe('a new note');
   });
 });

@@ -23,13 +23,22 @@ export interface SummaryEquilibrium {
   readonly stability: string;
 }
 
+/**
+ * The engine's regime notes (`shared/regime/classify-regime.ts`) by how they begin, so they can be
+ * said in the host's words; a note not listed is shown as the API wrote it.
+ */
+const NOTE_KINDS: readonly (readonly [string, 'dyingOut' | 'shortWindow'])[] = [
+  ['a level still above its quasi-extinction threshold', 'dyingOut'],
+  ['irregular maxima', 'shortWindow'],
+];
+
 /** The regime summary, ready to show. */
 export interface RegimeSummaryText {
   /** The regime's plain name. */
   readonly title: string;
   /** One plain sentence. */
   readonly sentence: string;
-  /** Exponent, horizon, period. */
+  /** Levels dying out (collapse), exponent, horizon, period, the note on weaker evidence. */
   readonly facts: readonly SummaryFact[];
   /** The feasible equilibria, the interior one last. */
   readonly equilibria: readonly SummaryEquilibrium[];
@@ -50,29 +59,49 @@ export function regimeSummaryText(
   const t = model.timeUnit;
   const plural = (v: number) => `${fmt.format(v)} ${t}${v === 1 ? '' : 's'}`;
   const exponent = regime.lyapunovExponent;
-  const facts: SummaryFact[] = [
+  const names = new Map(model.levels.map((l) => [l.id, l]));
+  const list = new Intl.ListFormat(locale, { type: 'conjunction' });
+  const collapsed = (regime.regime === 'collapse' ? (regime.collapsedLevels ?? []) : []).map(
+    (id) => names.get(id) ?? { name: id, unit: '' },
+  );
+  const collapsedNames = list.format(collapsed.map((l) => l.name));
+  const facts: SummaryFact[] = [];
+  if (collapsed.length) {
+    facts.push({
+      label: strings.collapsedLabel,
+      value: list.format(
+        collapsed.map((l) => (l.unit ? strings.levelWithUnit(l.name, formatUnit(l.unit)) : l.name)),
+      ),
+    });
+  }
+  facts.push(
     {
       label: strings.exponentLabel,
-      value: `${fmt.format(exponent.value)} ± ${fmt.format(exponent.standardError)} per ${t}`,
+      value: `${fmt.format(exponent.value)} ± ${fmt.format(exponent.standardError)} ${strings.perTime(t)}`,
     },
     {
       label: strings.horizonLabel,
       value:
         regime.predictabilityHorizon !== undefined
-          ? `about ${plural(regime.predictabilityHorizon)}`
+          ? strings.about(plural(regime.predictabilityHorizon))
           : strings.notLimited,
     },
-  ];
+  );
   if (regime.period !== undefined) {
     facts.push({ label: strings.periodLabel, value: plural(regime.period) });
   }
-  const names = new Map(model.levels.map((l) => [l.id, l]));
-  const list = equilibria
+  if (regime.regimeNote) {
+    facts.push({
+      label: strings.regimeNoteLabel,
+      value: noteInWords(regime.regimeNote, collapsedNames, collapsed.length, strings),
+    });
+  }
+  const listed = equilibria
     .filter((e) => e.feasible)
     .map((e) => ({
       name: e.present.length
-        ? e.present.map((id) => names.get(id)?.name ?? id).join(' and ')
-        : 'Every level extinct',
+        ? list.format(e.present.map((id) => names.get(id)?.name ?? id))
+        : strings.everyLevelExtinct,
       state: model.levels
         .map((l) => `${l.name} ${fmt.format(e.state[l.id] ?? 0)} ${formatUnit(l.unit)}`)
         .join(', '),
@@ -80,9 +109,26 @@ export function regimeSummaryText(
       stability: `${e.classification}, ${e.stable ? strings.stable : strings.unstable}`,
     }));
   return {
-    title: strings.regimeName[regime.regime],
-    sentence: strings.regimeSentence[regime.regime],
+    title: collapsed.length
+      ? strings.collapseTitle(collapsedNames, collapsed.length)
+      : strings.regimeName[regime.regime],
+    sentence: collapsed.length
+      ? strings.collapseSentence(collapsedNames, collapsed.length)
+      : strings.regimeSentence[regime.regime],
     facts,
-    equilibria: list,
+    equilibria: listed,
   };
+}
+
+/** The API's note in the host's words when it is one the engine gives, else as written. */
+function noteInWords(
+  note: string,
+  collapsedNames: string,
+  count: number,
+  strings: TroplineStrings,
+): string {
+  const kind = NOTE_KINDS.find(([start]) => note.startsWith(start))?.[1];
+  if (kind === 'dyingOut' && count > 0) return strings.regimeNote.dyingOut(collapsedNames, count);
+  if (kind === 'shortWindow') return strings.regimeNote.shortWindow;
+  return note;
 }

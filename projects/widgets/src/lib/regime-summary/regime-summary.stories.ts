@@ -1,5 +1,11 @@
 import type { Meta, StoryObj } from '@storybook/angular';
-import { findEquilibria, LAKE_DEMO, UPLAND_DEMO } from '@tropline/core';
+import {
+  findEquilibria,
+  HASTINGS_POWELL_BENCHMARK,
+  LAKE_DEMO,
+  UPLAND_DEMO,
+  withParameter,
+} from '@tropline/core';
 import { QUOTA_REFUSED } from '../../../../../.storybook/story-states';
 import { ENGINE_ANALYSES } from '../../../testing/src/engine-analyses';
 import { RegimeSummary } from './regime-summary';
@@ -12,9 +18,12 @@ const meta: Meta<RegimeSummary> = {
       description: {
         component: `
 **What it is for.** The long-run behaviour in plain words, for readers who do not read phase
-portraits: the regime (settles, cycles, chaotic or a level dies out), the largest Lyapunov
-exponent with its standard error, the predictability horizon in the model's time unit, the
-equilibria with their stability — and the cautions.
+portraits: the regime (settles, cycles, chaotic or a level dies out — naming the levels that die out, with
+their units), the largest Lyapunov exponent with its standard error, the predictability horizon
+in the model's time unit, the API's note when the verdict rests on weaker evidence (a level
+dying out while still above its quasi-extinction threshold; a window too short to settle
+irregular peaks), the equilibria with their stability — and the cautions. Every word comes from
+the strings object (\`provideTropline({ strings })\`), so a host can translate it.
 
 **Inputs.** \`model\` (required; names, units and time unit), \`regime\` (the API's assessment;
 undefined while it is computed), \`equilibria\`, \`error\` (why the assessment is not available),
@@ -53,6 +62,28 @@ export const Settles: Story = {
     model: UPLAND_DEMO.model,
     regime: ENGINE_ANALYSES.regime({ model: UPLAND_DEMO.model, initial: UPLAND_DEMO.initial }),
     equilibria: findEquilibria(UPLAND_DEMO.model),
+  },
+};
+
+// Hastings & Powell's chain at b1 = 1 with d2 = 0.0172: the top predator cannot invade and
+// declines steadily, still above its threshold in the window (see the text spec).
+const dying = withParameter(
+  withParameter(HASTINGS_POWELL_BENCHMARK.model, '/levels/1/handlingTime', 0.2),
+  '/levels/2/mortality',
+  0.0172,
+);
+
+/** The top predator dies out: named with its unit, and the API's note said in words. */
+export const Collapse: Story = {
+  args: {
+    model: dying,
+    regime: ENGINE_ANALYSES.regime({
+      model: dying,
+      initial: HASTINGS_POWELL_BENCHMARK.initial,
+      transient: 1000,
+      window: 1000,
+    }),
+    equilibria: findEquilibria(dying),
   },
 };
 
