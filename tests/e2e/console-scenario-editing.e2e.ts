@@ -123,6 +123,12 @@ describe('console: an analyst edits a scenario, compares versions and runs every
     await page.getByRole('checkbox', { name: 'Show only the differences' }).check();
     expect(await table.locator('tbody tr').count()).toBe(4);
     await checkpoint(page, 'edit-06-compare-differences');
+    // And their projections, with the library's comparison widget: version 1 against the two
+    // numbers version 2 changed (names and units do not change a projection).
+    await page.getByText('against the 2 values version 2 changed').waitFor();
+    await page.getByRole('button', { name: 'Compare the projections' }).click();
+    await page.locator('tropline-scenario-comparison canvas').first().waitFor({ timeout: 90_000 });
+    await checkpoint(page, 'edit-06b-compare-projections');
 
     // Someone else saves while this edit is open: the server's conflict (pointer
     // /baseVersion, which no field holds) is shown for the whole form, with what to do.

@@ -1,8 +1,11 @@
 import {
+  diffDocuments,
   UPLAND_DEMO,
+  withParameter,
   validateComparisonRequest,
   validateEnsembleRequest,
   validateSweepRequest,
+  type ChainModel,
 } from '@tropline/core';
 import {
   comparisonRequest,
@@ -10,6 +13,7 @@ import {
   ensembleRequest,
   ensembleTrajectory,
   sweepRequest,
+  versionComparisonRequest,
 } from './analysis-requests';
 import type { ScenarioContent } from './scenario-types';
 
@@ -71,6 +75,29 @@ describe('analysis requests of the scenario page', () => {
       { pointer: '/model/levels/1/mortality', value: 0.4 },
     ]);
     expect(body.window).toBe(20);
+    const checked = validateComparisonRequest(body);
+    expect(checked.ok, JSON.stringify(checked)).toBe(true);
+  });
+
+  it('compares two versions by the numbers that differ, not by names or units', () => {
+    const moved = withParameter(content.model, '/levels/1/mortality', 0.35);
+    const renamed = moved.levels.map((l, i) => (i === 2 ? { ...l, name: 'Grey wolf (ridge)' } : l));
+    const later: ScenarioContent = {
+      ...content,
+      model: { ...moved, levels: renamed } as ChainModel,
+      initial: { ...content.initial, deer: 9.5 },
+    };
+    // The change list is the server's own (`diffDocuments`, what GET …/comparison answers).
+    const body = versionComparisonRequest(content, 2, diffDocuments(content, later));
+    expect(body.scenarios).toEqual([
+      {
+        name: 'Version 2',
+        changes: [
+          { pointer: '/model/levels/1/mortality', value: 0.35 },
+          { pointer: '/initial/deer', value: 9.5 },
+        ],
+      },
+    ]);
     const checked = validateComparisonRequest(body);
     expect(checked.ok, JSON.stringify(checked)).toBe(true);
   });

@@ -1,11 +1,13 @@
 import { getParameter, type ChainModel } from '@tropline/core';
 import type {
   ComparisonRequest,
+  ScenarioChange,
   PercentileBands,
   SweepRequest,
   TrajectoryData,
 } from '@tropline/widgets';
 import type { ScenarioContent } from './scenario-types';
+import type { VersionChange } from './version-fields';
 
 /** What the sweep form asks. */
 export interface SweepForm {
@@ -122,5 +124,32 @@ export function comparisonRequest(
       name: a.name.trim() || a.pointer,
       changes: [{ pointer: `/model${a.pointer}`, value: a.value }],
     })),
+  };
+}
+
+/**
+ * The numbers that differ between two versions as changes a comparison can apply to the
+ * earlier one: model parameters and starting values. Names, units and structure (a level or
+ * a harvest added) are left out, since a comparison varies values of one chain.
+ */
+export function versionChanges(changes: readonly VersionChange[]): ScenarioChange[] {
+  return changes.flatMap((c) =>
+    (c.pointer.startsWith('/model/') || c.pointer.startsWith('/initial/')) &&
+    typeof c.before === 'number' &&
+    typeof c.after === 'number'
+      ? [{ pointer: c.pointer, value: c.after }]
+      : [],
+  );
+}
+
+/** The earlier version as the baseline against the later one's values, over the earlier horizon. */
+export function versionComparisonRequest(
+  before: ScenarioContent,
+  later: number,
+  changes: readonly VersionChange[],
+): ComparisonRequest {
+  return {
+    ...comparisonRequest(before, []),
+    scenarios: [{ name: `Version ${later}`, changes: versionChanges(changes) }],
   };
 }

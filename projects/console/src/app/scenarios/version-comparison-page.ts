@@ -20,6 +20,8 @@ import { ProblemAlert } from '../problem/problem-alert';
 import { ConsoleSession } from '../session/console-session';
 import { ScenariosApi } from './scenarios-api';
 import { authorName, fieldRows } from './version-fields';
+import { versionChanges, versionComparisonRequest } from './analysis-requests';
+import { ScenarioComparison, type ComparisonRequest } from '@tropline/widgets';
 import { MembersApi } from '../members/members-api';
 
 /** A version number from the query, or undefined. */
@@ -65,6 +67,7 @@ async function loadComparison(
     MatLabel,
     EmptyState,
     ProblemAlert,
+    ScenarioComparison,
     Skeleton,
   ],
   templateUrl: './version-comparison-page.html',
@@ -75,7 +78,7 @@ export class VersionComparisonPage {
   private readonly api = inject(ScenariosApi);
   private readonly members = inject(MembersApi);
   private readonly router = inject(Router);
-  private readonly session = inject(ConsoleSession);
+  protected readonly session = inject(ConsoleSession);
 
   /** The scenario id, from the route. */
   readonly id = input.required<string>();
@@ -96,6 +99,12 @@ export class VersionComparisonPage {
     'compare the versions',
   );
   protected readonly onlyDifferences = signal(false);
+  /** The projections of both versions compared, once asked (it is charged). */
+  protected readonly projections = signal<ComparisonRequest | undefined>(undefined);
+  /** How many numbers differ that a projection comparison can vary. */
+  protected readonly numeric = computed(
+    () => versionChanges(this.data.value()?.comparison.changes ?? []).length,
+  );
   protected readonly rows = computed(() => {
     const d = this.data.value();
     if (!d?.before.content || !d.after.content) return [];
@@ -119,8 +128,20 @@ export class VersionComparisonPage {
       this.from();
       this.to();
       this.session.tenant();
-      untracked(() => void this.data.load());
+      untracked(() => {
+        this.projections.set(undefined);
+        void this.data.load();
+      });
     });
+  }
+
+  /** Compares the projections: the earlier version against the later one's values. */
+  protected compareProjections(): void {
+    const d = this.data.value();
+    if (!d?.before.content) return;
+    this.projections.set(
+      versionComparisonRequest(d.before.content, d.after.version, d.comparison.changes),
+    );
   }
 
   /** Shows another pair of versions (the address changes, so it can be shared). */
