@@ -93,7 +93,7 @@ describe('/console/compute: the compute routes for signed-in members', () => {
       job = (await analyst.agent.get(`/api/v1/console/compute/jobs/${id}`).set(TENANT).expect(200))
         .body;
     }
-    expect(job.status, JSON.stringify(job)).toBe("succeeded");
+    expect(job.status, JSON.stringify(job)).toBe('succeeded');
     expect(job.result?.points.length).toBeGreaterThan(0);
     const events = await analyst.agent
       .get(`/api/v1/console/compute/jobs/${id}/events`)
