@@ -129,6 +129,12 @@ export interface TroplineStrings {
   readonly never: string;
   /** Marker of the current parameter value on the bifurcation chart. */
   readonly currentValue: string;
+  /** Legend name of the bifurcation chart's values where a level dies out without peaks. */
+  readonly decliningLegend: string;
+  /** Table cell of such a value, in place of its peaks. */
+  readonly decliningCell: string;
+  /** Sentence of the bifurcation summary on such values (`values` already listed). */
+  readonly decliningSummary: (count: number, values: string) => string;
   /** Legend name of the transient part of a phase portrait. */
   readonly transient: string;
   /** Legend name of the long-run part of a phase portrait. */
@@ -262,6 +268,11 @@ export const DEFAULT_TROPLINE_STRINGS: TroplineStrings = {
   },
   never: 'never',
   currentValue: 'Current value',
+  decliningLegend: 'Dies out, no peaks (▼ on the zero line)',
+  decliningCell: 'none: declines toward zero (▼)',
+  decliningSummary: (count, values) =>
+    `At ${count === 1 ? 'one value' : `${count} values`} (${values}) the level declines toward ` +
+    'zero without peaks; these are marked ▼ on the zero line.',
   transient: 'Transient (early)',
   longRun: 'Long run',
   nullcline: (level) => `${level} unchanging (nullcline)`,

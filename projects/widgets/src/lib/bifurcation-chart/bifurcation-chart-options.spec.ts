@@ -2,6 +2,7 @@ import type { SweepResult } from '../api/analysis-types';
 import {
   bifurcationChartOptions,
   bifurcationTable,
+  DECLINING_SYMBOL,
   describeBifurcation,
   REGIME_SYMBOLS,
 } from './bifurcation-chart-options';
@@ -65,6 +66,66 @@ describe('bifurcationChartOptions', () => {
 
   it('marks the current value', () => {
     expect(option.series.at(-1)!.markLine!.data).toEqual([{ xAxis: 3 }]);
+  });
+});
+
+// A collapse with no maxima: the observed level declines without oscillating (e.g. a top
+// predator that cannot invade), so the sweep has no peaks to plot there.
+const dying: SweepResult = {
+  points: [
+    { value: 0.01, maxima: [0.5, 0.52], regime: 'cycle' },
+    { value: 0.015, maxima: [0.2, 0.1], regime: 'collapse' },
+    { value: 0.02, maxima: [], regime: 'collapse' },
+    { value: 0.025, maxima: [], regime: 'collapse' },
+  ],
+};
+
+describe('values where a level dies out without peaks', () => {
+  const option = bifurcationChartOptions(dying, {
+    axes,
+    colors,
+    textColor: '#000',
+    locale: 'en',
+  }) as { series: (SeriesLike & { color: string })[]; yAxis: { scale: boolean } };
+
+  it('marks them on the zero line with their own shape and a legend name in words', () => {
+    const marks = option.series.find((s) => s.id === 'collapse-declining')!;
+    expect(marks.data).toEqual([
+      [0.02, 0],
+      [0.025, 0],
+    ]);
+    expect(marks.symbol).toBe(DECLINING_SYMBOL);
+    expect(Object.values(REGIME_SYMBOLS)).not.toContain(marks.symbol);
+    expect(marks.name).toBe('Dies out, no peaks (▼ on the zero line)');
+    expect(marks.color).toBe(colors.collapse);
+    // The collapse with peaks keeps its square markers; zero is in the vertical range.
+    expect(option.series.find((s) => s.id === 'collapse')!.data).toEqual([
+      [0.015, 0.2],
+      [0.015, 0.1],
+    ]);
+    expect(option.yAxis.scale).toBe(false);
+  });
+
+  it('says them in the summary and the table', () => {
+    expect(describeBifurcation(dying, axes, 'de')).toContain(
+      'At 2 values (0,02, 0,025) the level declines toward zero without peaks; these are ' +
+        'marked ▼ on the zero line.',
+    );
+    const rows = bifurcationTable(dying, axes).rows;
+    expect(rows[1]![2]).toBe('0.2000 0.1000');
+    expect(rows[2]).toEqual([0.02, 'A level dies out', 'none: declines toward zero (▼)']);
+  });
+
+  it('adds nothing when every value has peaks', () => {
+    const plain = bifurcationChartOptions(result, {
+      axes,
+      colors,
+      textColor: '#000',
+      locale: 'en',
+    }) as { series: SeriesLike[]; yAxis: { scale: boolean } };
+    expect(plain.series.some((s) => s.id === 'collapse-declining')).toBe(false);
+    expect(plain.yAxis.scale).toBe(true);
+    expect(describeBifurcation(result, axes, 'en')).not.toContain('▼');
   });
 });
 

@@ -46,6 +46,25 @@ export interface BifurcationSettings {
 
 const REGIMES: readonly Regime[] = ['equilibrium', 'cycle', 'chaotic', 'collapse'];
 
+/**
+ * Marker of a value where a level dies out without peaks: a downward triangle (drawn as a path,
+ * so the legend shows it too), distinct in shape from every regime's marker.
+ */
+export const DECLINING_SYMBOL = 'path://M0,0L10,0L5,9Z';
+
+/** The values classified collapse with no maxima: a level declining without oscillating. */
+export function decliningValues(result: SweepResult): number[] {
+  return result.points
+    .filter((p) => p.regime === 'collapse' && !p.maxima.length)
+    .map((p) => p.value);
+}
+
+/** Up to six values in the locale, then "…" and the last. */
+function listValues(values: readonly number[], fmt: Intl.NumberFormat): string {
+  const shown = values.length > 6 ? [...values.slice(0, 5), Number.NaN, values.at(-1)!] : values;
+  return shown.map((v) => (Number.isNaN(v) ? '…' : fmt.format(v))).join(', ');
+}
+
 /** A paragraph describing the diagram: the range and where each regime occurs. */
 export function describeBifurcation(
   result: SweepResult,
@@ -69,10 +88,14 @@ export function describeBifurcation(
       start = i;
     }
   }
+  const declining = decliningValues(result);
   return (
     `Bifurcation diagram: the long-run maxima of ${axes.observed} for ${values.length} values ` +
     `of ${axes.parameter} from ${fmt.format(Math.min(...values))} to ` +
-    `${fmt.format(Math.max(...values))}. Regimes: ${spans.join('; ')}.`
+    `${fmt.format(Math.max(...values))}. Regimes: ${spans.join('; ')}.` +
+    (declining.length
+      ? ' ' + strings.decliningSummary(declining.length, listValues(declining, fmt))
+      : '')
   );
 }
 
@@ -88,7 +111,11 @@ export function bifurcationTable(
     rows: result.points.map((p) => [
       p.value,
       strings.regimeName[p.regime],
-      p.maxima.length ? p.maxima.map((m) => m.toPrecision(4)).join(' ') : '—',
+      p.maxima.length
+        ? p.maxima.map((m) => m.toPrecision(4)).join(' ')
+        : p.regime === 'collapse'
+          ? strings.decliningCell
+          : '—',
     ]),
   };
 }
@@ -96,7 +123,8 @@ export function bifurcationTable(
 /**
  * Builds the ECharts option of a bifurcation diagram: one scatter series per regime (its own
  * colour and marker shape, named with the shape in the legend) of every long-run maximum of the
- * observed level against the swept value, and the current value marked.
+ * observed level against the swept value, the values where a level dies out without peaks marked
+ * ▼ on the zero line (their own series and legend entry), and the current value marked.
  */
 export function bifurcationChartOptions(
   result: SweepResult,
@@ -119,6 +147,20 @@ export function bifurcationChartOptions(
       .filter((p) => p.regime === regime)
       .flatMap((p) => p.maxima.map((m) => [p.value, m])),
   }));
+  const declining = decliningValues(result);
+  if (declining.length) {
+    // Nothing else would be drawn there: the level's long run is zero, so the marks sit on it.
+    series.push({
+      id: 'collapse-declining',
+      name: strings.decliningLegend,
+      type: 'scatter',
+      symbol: DECLINING_SYMBOL,
+      symbolSize: 9,
+      symbolOffset: [0, '-50%'],
+      color: settings.colors.collapse,
+      data: declining.map((v) => [v, 0]),
+    });
+  }
   if (settings.current !== undefined) {
     // On its own empty series: scatter series drawn in `large` mode do not render mark lines.
     series.push({
@@ -166,7 +208,8 @@ export function bifurcationChartOptions(
       nameTextStyle: { color: text },
       axisLabel: { color: text, formatter: (v: number) => fmt.format(v) },
       ...axisStyle(text),
-      scale: true,
+      // Zero kept in range when values declining to it are marked there.
+      scale: !declining.length,
     },
     series,
   };

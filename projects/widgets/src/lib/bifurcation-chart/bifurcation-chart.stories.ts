@@ -1,5 +1,5 @@
 import type { Meta, StoryObj } from '@storybook/angular';
-import { HASTINGS_POWELL_BENCHMARK } from '@tropline/core';
+import { HASTINGS_POWELL_BENCHMARK, withParameter } from '@tropline/core';
 import { darkMode, QUOTA_REFUSED, withClient } from '../../../../../.storybook/story-states';
 import type { SweepRequest } from '../api/analysis-types';
 import { BifurcationChart } from './bifurcation-chart';
@@ -19,6 +19,22 @@ const sweep: SweepRequest = {
   window: 1000,
 };
 
+/**
+ * The top predator's mortality d2 swept at b1 = 1: past the invasion threshold (d2 ≈ 0.0142,
+ * derived in shared/regime/assess-regime.spec.ts) it declines without peaks and dies out.
+ */
+const dying: SweepRequest = {
+  model: withParameter(model, '/levels/1/handlingTime', 0.2),
+  initial,
+  parameter: '/levels/2/mortality',
+  from: 0.004,
+  to: 0.03,
+  steps: 27,
+  observe: model.levels[2]!.id,
+  transient: 1000,
+  window: 1000,
+};
+
 const meta: Meta<BifurcationChart> = {
   title: 'Widgets/Bifurcation chart',
   component: BifurcationChart,
@@ -28,8 +44,10 @@ const meta: Meta<BifurcationChart> = {
         component: `
 **What it is for.** How the long-run behaviour changes as one parameter is varied: for each
 value, the peaks one level reaches after the transient. One peak means a steady state or simple
-cycle, a few a more complex cycle, a cloud chaos. The current value is marked, so a reader sees
-how close the system sits to a change of regime.
+cycle, a few a more complex cycle, a cloud chaos. Where the level dies out without peaks
+(declining steadily toward zero), the value is marked ▼ on the zero line, with its own legend
+entry. The current value is marked, so a reader sees how close the system sits to a change of
+regime.
 
 **Inputs.** \`request\`: a sweep (model, start, parameter pointer, range, steps, observed level,
 transient and window) to run on the API as a background job; or \`result\`: a finished sweep to
@@ -40,8 +58,9 @@ parameter's value now) and \`label\` (the accessible name, default *Bifurcation 
 a refusal (quota, bounds) shows its heading, what to do and when the allowance resets.
 
 **Accessibility.** The chart is an image (\`role="img"\`) described by its caption; regimes differ
-by marker shape as well as colour. Progress is announced through the progress bar, refusals as
-an alert. The table view gives each value's regime and peaks as text.
+by marker shape as well as colour, and the legend names each shape in words. The summary lists
+the values where a level dies out without peaks. Progress is announced through the progress
+bar, refusals as an alert. The table view gives each value's regime and peaks as text.
 
 **Cautions.** The diagram is the model's, computed over long runs: where it shows chaos, no
 projection is meaningful past its predictability horizon, and decisions on harvest or culling
@@ -57,6 +76,9 @@ type Story = StoryObj<BifurcationChart>;
 
 /** The benchmark's sweep, computed in the page step by step. */
 export const BenchmarkSweep: Story = { args: { request: sweep } };
+
+/** A level that dies out without peaks past a threshold: ▼ on the zero line. */
+export const LevelDiesOut: Story = { args: { request: dying } };
 
 /** A slow service: the progress bar and the cancel button. */
 export const Running: Story = {
