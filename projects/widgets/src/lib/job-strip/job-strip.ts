@@ -3,6 +3,8 @@ import { TROPLINE_STRINGS } from '../api/tropline-strings';
 import { JobProgress } from '../job-progress/job-progress';
 import type { JobState } from './job-state';
 
+let nextId = 0;
+
 /**
  * Where a widget's background job stands, in one strip above its chart: the progress bar with
  * a cancel button while it runs; the refusal or failure once it fails (heading, what to do —
@@ -23,8 +25,8 @@ import type { JobState } from './job-state';
       }
       @case ('failed') {
         @if (error(); as e) {
-          <div class="tropline-job-strip__error" role="alert">
-            <strong>{{ e.title }}</strong>
+          <div class="tropline-job-strip__error" role="alert" [attr.aria-labelledby]="titleId">
+            <strong [id]="titleId">{{ e.title }}</strong>
             <p>{{ e.message }}</p>
             @for (field of e.fieldErrors; track field.pointer) {
               <p class="tropline-job-strip__field">{{ field.pointer }}: {{ field.message }}</p>
@@ -78,6 +80,8 @@ export class JobStrip {
   /** Emits when the reader asks to stop the job. */
   readonly cancelJob = output<void>();
 
+  /** Names the alert by its heading, so it is found (and read) by what went wrong. */
+  protected readonly titleId = `tropline-job-strip-title-${nextId++}`;
   /** Whether there is nothing to say (idle or done): the strip then takes no space. */
   protected readonly quiet = computed(() => {
     const kind = this.state().kind;
