@@ -4,7 +4,7 @@ import { principalOf } from '../auth/key-principal';
 import { validationProblem } from '../http/problem';
 import type { QuotasService } from '../quotas/quotas-service';
 import { COSTS } from '../quotas/compute-costs';
-import { requestHash } from './canonical-json';
+import { unvalidatedRequestHash } from './canonical-json';
 import { engineProblem } from './engine-problem';
 import type { ResultCache } from './result-cache';
 
@@ -54,7 +54,7 @@ function sendJson(res: Response, body: Buffer, cache: 'hit' | 'miss', timing: st
 
 /**
  * The pipeline every synchronous compute route shares, in the order that keeps refusals
- * cheap: validate (400), price and bound (422), cache lookup, admission (429), compute, answer.
+ * cheap: cache lookup, validate (400), price and bound (422), admission (429), compute, answer.
  * Far from the limits the computation runs while the admission commits on the ledger's thread;
  * the answer still waits for the admission to be durable, and a refused request's result is
  * thrown away. A failure after admission gives the units back.
@@ -66,6 +66,17 @@ export function syncCompute<T>(
 ): RequestHandler {
   return async (req, res) => {
     const principal = principalOf(req);
+    // Only bodies that passed validation and their bounds are ever cached, so a hit needs
+    // neither again.
+    const hash = unvalidatedRequestHash(principal.tenantId, endpoint.name, req.body);
+    const hit = hash === undefined ? undefined : cache.get(hash);
+    if (hit !== undefined) {
+      const waited = performance.now();
+      await quotas.admit(principal, endpoint.name, COSTS.cached, res, true);
+      const admitMs = performance.now() - waited;
+      sendJson(res, hit, 'hit', `admit;dur=${ms(admitMs)}, total;dur=${ms(elapsed(res))}`);
+      return;
+    }
     const checked = endpoint.validate(req.body);
     if (!checked.ok) throw validationProblem([...checked.errors]);
     let cost: number;
@@ -73,15 +84,6 @@ export function syncCompute<T>(
       cost = endpoint.cost(checked.value);
     } catch (err) {
       throw engineProblem(err);
-    }
-    const hash = requestHash(principal.tenantId, endpoint.name, req.body);
-    const hit = cache.get(hash);
-    if (hit !== undefined) {
-      const waited = performance.now();
-      await quotas.admit(principal, endpoint.name, COSTS.cached, res, true);
-      const admitMs = performance.now() - waited;
-      sendJson(res, hit, 'hit', `admit;dur=${ms(admitMs)}, total;dur=${ms(elapsed(res))}`);
-      return;
     }
     const pending = quotas.begin(principal, endpoint.name, cost, res);
     let waited = performance.now();
@@ -107,7 +109,7 @@ export function syncCompute<T>(
       await quotas.refund(ticket);
       throw engineProblem(failure); // rethrows what is not the engine's typed error (a 500)
     }
-    cache.set(hash, body);
+    if (hash !== undefined) cache.set(hash, body);
     // Server-side time (auth, admission, validation, compute, serialisation) for integrators
     // and the benchmark; the network and the client are not in it.
     sendJson(
