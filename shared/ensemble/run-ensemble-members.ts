@@ -89,12 +89,34 @@ export function runEnsembleMembers(
   start: number,
   end: number,
 ): EnsembleMembers {
+  const { S, n } = ensembleShape(req);
+  const series = new Float64Array((end - start) * S * n);
+  const crossings = new Float64Array((end - start) * n);
+  const members = Array.from({ length: end - start }, (_, k) => start + k);
+  return { series, crossings, ...writeEnsembleMembers(req, members, series, crossings, start) };
+}
+
+/** Samples per member (S) and levels (n): member m's block is S·n values of `series`. */
+export function ensembleShape(req: EnsembleRequest): { S: number; n: number } {
+  return { S: req.samples, n: req.model.levels.length };
+}
+
+/**
+ * Runs the given members (any order, any subset) and writes member m's samples at block
+ * m − `base` of `series` and its crossing times at block m − `base` of `crossings` (both
+ * member-major, as {@link EnsembleMembers}), with one integrator for all of them. The pool's
+ * workers write straight into shared buffers this way, so members never travel back as copies.
+ */
+export function writeEnsembleMembers(
+  req: EnsembleRequest,
+  members: readonly number[],
+  series: Float64Array,
+  crossings: Float64Array,
+  base = 0,
+): { steps: number; evaluations: number } {
   const times = ensembleTimes(req.horizon, req.samples);
   const S = times.length;
   const n = req.model.levels.length;
-  const count = end - start;
-  const series = new Float64Array(count * S * n);
-  const crossings = new Float64Array(count * n).fill(Number.POSITIVE_INFINITY);
   const stepper = new Dop853(n);
   const y = new Float64Array(n);
   const out = new Float64Array(n);
@@ -102,14 +124,15 @@ export function runEnsembleMembers(
   const thr = extinctionThresholds(req.model, req.extinction);
   let steps = 0;
   let evaluations = 0;
-  for (let m = start; m < end; m++) {
+  for (const m of members) {
     const { model, y0 } = drawMember(req, m);
     const kernel = specialiseChain(model);
-    const base = (m - start) * S * n;
-    const cBase = (m - start) * n;
+    const at = (m - base) * S * n;
+    const cAt = (m - base) * n;
+    crossings.fill(Number.POSITIVE_INFINITY, cAt, cAt + n);
     for (let i = 0; i < n; i++) {
-      series[base + i] = y0[i]!;
-      if (y0[i]! < thr[i]!) crossings[cBase + i] = 0;
+      series[at + i] = y0[i]!;
+      if (y0[i]! < thr[i]!) crossings[cAt + i] = 0;
     }
     let next = 1;
     const r = stepper.integrate(
@@ -126,12 +149,12 @@ export function runEnsembleMembers(
         while (next < S && times[next]! <= step.tNew) {
           if (times[next] === step.tNew) out.set(step.yNew);
           else step.dense(times[next]!, out);
-          series.set(out, base + next * n);
+          series.set(out, at + next * n);
           next++;
         }
         for (let i = 0; i < n; i++) {
-          if (crossings[cBase + i] === Number.POSITIVE_INFINITY && step.yNew[i]! < thr[i]!) {
-            crossings[cBase + i] = crossingTime(step, i, thr[i]!);
+          if (crossings[cAt + i] === Number.POSITIVE_INFINITY && step.yNew[i]! < thr[i]!) {
+            crossings[cAt + i] = crossingTime(step, i, thr[i]!);
           }
         }
       },
@@ -140,5 +163,5 @@ export function runEnsembleMembers(
     steps += r.steps;
     evaluations += r.evaluations;
   }
-  return { series, crossings, steps, evaluations };
+  return { steps, evaluations };
 }

@@ -5,8 +5,14 @@ import {
   validateEnsembleRequest,
   type EnsembleRequest,
 } from '../analyses-contract/ensemble-contract';
-import { runEnsembleMembers, ensembleTimes } from './run-ensemble-members';
-import { summariseEnsemble, quantileSorted } from './summarise-ensemble';
+import { runEnsembleMembers, ensembleTimes, writeEnsembleMembers } from './run-ensemble-members';
+import {
+  assembleEnsemble,
+  bandColumnCount,
+  bandColumns,
+  summariseEnsemble,
+  quantileSorted,
+} from './summarise-ensemble';
 import { memberGenerator } from './member-generator';
 import { sampleDistribution } from './distribution';
 import { ModelValidationError } from '../model/validation-issue';
@@ -166,6 +172,34 @@ describe('ensembles', () => {
     const b = runEnsembleMembers(req, 11, 30);
     expect(Array.from(whole.series)).toEqual([...a.series, ...b.series]);
     expect(run(req)).toEqual(run(req));
+  });
+
+  // What the pool relies on: members written in any order into one buffer, and the band
+  // columns computed in any split, give exactly the in-order run (Object.is on every value).
+  it('gives the same members in any order and the same bands in any split of columns', () => {
+    const req = request(
+      producerOnly(
+        [{ level: 'algae', distribution: { kind: 'uniform', min: 0.01, max: 0.1 } }],
+        23,
+        { extinction: { algae: 0.03 } },
+      ),
+    );
+    const whole = runEnsembleMembers(req, 0, 23);
+    const series = new Float64Array(whole.series.length);
+    const crossings = new Float64Array(whole.crossings.length);
+    const shuffled = [
+      7, 22, 0, 15, 3, 11, 19, 1, 8, 14, 5, 21, 2, 9, 17, 4, 12, 20, 6, 13, 10, 18, 16,
+    ];
+    writeEnsembleMembers(req, shuffled, series, crossings);
+    expect(series).toEqual(whole.series);
+    expect(crossings).toEqual(whole.crossings);
+    const columns = bandColumnCount(req);
+    const all = bandColumns(req, series, 0, columns);
+    const split = [0, 5, 6, 13, columns].flatMap((from, k, cuts) =>
+      k + 1 < cuts.length ? Array.from(bandColumns(req, series, from, cuts[k + 1]!)) : [],
+    );
+    expect(split).toEqual(Array.from(all));
+    expect(assembleEnsemble(req, all, crossings)).toEqual(run(req));
   });
 
   it('keeps a truncated normal inside its bounds', () => {

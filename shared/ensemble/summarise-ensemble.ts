@@ -40,12 +40,54 @@ export function summariseEnsemble(
   series: Float64Array,
   crossings: Float64Array,
 ): EnsembleResult {
+  return assembleEnsemble(req, bandColumns(req, series, 0, bandColumnCount(req)), crossings);
+}
+
+/** Columns of the bands: one per level and sample time, column c = level · samples + sample. */
+export function bandColumnCount(req: EnsembleRequest): number {
+  return req.model.levels.length * req.samples;
+}
+
+/**
+ * The band percentiles of columns [from, to): each column's values over all members, sorted,
+ * then {@link BAND_PERCENTILES} by {@link quantileSorted}, five values per column in column
+ * order. A column needs every member but no other column, so any split of the columns gives
+ * the same numbers (the pool computes them in its workers).
+ */
+export function bandColumns(
+  req: EnsembleRequest,
+  series: Float64Array,
+  from: number,
+  to: number,
+): Float64Array {
+  const S = req.samples;
+  const n = req.model.levels.length;
+  const M = req.members;
+  const column = new Float64Array(M);
+  const out = new Float64Array((to - from) * BAND_PERCENTILES.length);
+  let k = 0;
+  for (let c = from; c < to; c++) {
+    const i = Math.floor(c / S);
+    const s = c - i * S;
+    for (let m = 0; m < M; m++) column[m] = series[(m * S + s) * n + i]!;
+    column.sort();
+    for (const p of BAND_PERCENTILES) out[k++] = quantileSorted(column, p / 100);
+  }
+  return out;
+}
+
+/** The result from every column's percentiles (column order) and the members' crossing times. */
+export function assembleEnsemble(
+  req: EnsembleRequest,
+  quantiles: Float64Array,
+  crossings: Float64Array,
+): EnsembleResult {
   const times = ensembleTimes(req.horizon, req.samples);
   const S = times.length;
   const ids = req.model.levels.map((l) => l.id);
   const n = ids.length;
   const M = req.members;
-  const column = new Float64Array(M);
+  const P = BAND_PERCENTILES.length;
   const thr = extinctionThresholds(req.model, req.extinction);
   const bands: Record<string, PercentileBands> = {};
   const belowThreshold: Record<string, number[]> = {};
@@ -53,9 +95,7 @@ export function summariseEnsemble(
   ids.forEach((id, i) => {
     const b: PercentileBands = { p5: [], p25: [], p50: [], p75: [], p95: [] };
     for (let s = 0; s < S; s++) {
-      for (let m = 0; m < M; m++) column[m] = series[(m * S + s) * n + i]!;
-      column.sort();
-      for (const p of BAND_PERCENTILES) b[`p${p}`].push(quantileSorted(column, p / 100));
+      BAND_PERCENTILES.forEach((p, j) => b[`p${p}`].push(quantiles[(i * S + s) * P + j]!));
     }
     bands[id] = b;
     const first = Float64Array.from({ length: M }, (_, m) => crossings[m * n + i]!).sort();

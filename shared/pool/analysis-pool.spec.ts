@@ -82,6 +82,13 @@ const comparison = ok(
   }),
 );
 
+/** Progress starts at 0, never falls and ends at 1. */
+function expectRisingToOne(seen: number[]): void {
+  expect(seen[0]).toBe(0);
+  expect(seen[seen.length - 1]).toBe(1);
+  expect(seen.every((f, i) => i === 0 || f >= seen[i - 1]!)).toBe(true);
+}
+
 describe('analysis pool', () => {
   let one: AnalysisPool;
   let two: AnalysisPool;
@@ -166,10 +173,26 @@ describe('analysis pool', () => {
   it('reports progress rising to 1', async () => {
     const seen: number[] = [];
     await two.runSweep(sweep, { onProgress: (f) => seen.push(f) });
-    expect(seen[0]).toBe(0);
-    expect(seen[seen.length - 1]).toBe(1);
-    expect(seen.every((f, i) => i === 0 || f >= seen[i - 1]!)).toBe(true);
+    expectRisingToOne(seen);
     expect(seen.length).toBeGreaterThan(2);
+  });
+
+  // An ensemble runs in two phases (members, then the bands in the workers): progress still
+  // rises to 1 and a cancel during either phase stops it.
+  it('reports the progress of an ensemble rising to 1 and cancels it', async () => {
+    const seen: number[] = [];
+    await two.runEnsemble(ensemble, { onProgress: (f) => seen.push(f) });
+    expectRisingToOne(seen);
+    expect(seen.some((f) => f > 0 && f < 1)).toBe(true);
+    for (const at of [(f: number) => f > 0 && f < 0.95, (f: number) => f >= 0.95]) {
+      const stop = new AbortController();
+      const run = two.runEnsemble(ensemble, {
+        signal: stop.signal,
+        onProgress: (f) => at(f) && stop.abort(),
+      });
+      await expect(run).rejects.toMatchObject({ name: 'AbortError' });
+    }
+    expect((await two.runEnsemble(ensemble)).members).toBe(ensemble.members);
   });
 
   it('cancels through an AbortSignal', async () => {

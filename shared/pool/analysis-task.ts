@@ -5,7 +5,8 @@ import type { EnsembleRequest } from '../analyses-contract/ensemble-contract';
 import type { ComparisonRequest } from '../analyses-contract/comparison-contract';
 import { runSweepRange, type SweepRange } from '../sweep/run-sweep';
 import { runRegimeMapCells } from '../sweep/run-regime-map';
-import { runEnsembleMembers, type EnsembleMembers } from '../ensemble/run-ensemble-members';
+import { writeEnsembleMembers } from '../ensemble/run-ensemble-members';
+import { bandColumns } from '../ensemble/summarise-ensemble';
 import { runScenario } from '../compare/compare-scenarios';
 
 /**
@@ -19,6 +20,17 @@ export type AnalysisTask =
       readonly kind: 'ensemble';
       readonly request: EnsembleRequest;
       readonly items: readonly number[];
+      /** Member-major samples and crossing times of all members, shared with the caller. */
+      readonly series: SharedArrayBuffer;
+      readonly crossings: SharedArrayBuffer;
+    }
+  | {
+      readonly kind: 'bands';
+      readonly request: EnsembleRequest;
+      readonly series: SharedArrayBuffer;
+      /** Band columns [from, to), see `bandColumns`. */
+      readonly from: number;
+      readonly to: number;
     }
   | { readonly kind: 'scenario'; readonly request: ComparisonRequest; readonly index: number }
   | { readonly kind: 'regime'; readonly request: RegimeRequest };
@@ -42,7 +54,14 @@ export function runAnalysisTask(task: AnalysisTask): unknown {
       case 'map':
         return task.items.flatMap((i) => runRegimeMapCells(task.request, i, i + 1));
       case 'ensemble':
-        return mergeMembers(task.items.map((m) => runEnsembleMembers(task.request, m, m + 1)));
+        return writeEnsembleMembers(
+          task.request,
+          task.items,
+          new Float64Array(task.series),
+          new Float64Array(task.crossings),
+        );
+      case 'bands':
+        return bandColumns(task.request, new Float64Array(task.series), task.from, task.to);
       case 'scenario':
         return runScenario(task.request, task.index);
       case 'regime':
@@ -60,26 +79,6 @@ export function runAnalysisTask(task: AnalysisTask): unknown {
 function mergeSweepRanges(parts: SweepRange[]): SweepRange {
   return {
     points: parts.flatMap((p) => p.points),
-    steps: parts.reduce((a, p) => a + p.steps, 0),
-    evaluations: parts.reduce((a, p) => a + p.evaluations, 0),
-  };
-}
-
-/** One task's members, concatenated in the order of its items (member-major, as one run). */
-function mergeMembers(parts: EnsembleMembers[]): EnsembleMembers {
-  const series = new Float64Array(parts.reduce((a, p) => a + p.series.length, 0));
-  const crossings = new Float64Array(parts.reduce((a, p) => a + p.crossings.length, 0));
-  let s = 0;
-  let c = 0;
-  for (const p of parts) {
-    series.set(p.series, s);
-    crossings.set(p.crossings, c);
-    s += p.series.length;
-    c += p.crossings.length;
-  }
-  return {
-    series,
-    crossings,
     steps: parts.reduce((a, p) => a + p.steps, 0),
     evaluations: parts.reduce((a, p) => a + p.evaluations, 0),
   };
