@@ -58,11 +58,16 @@ export { ChartFigure } from './lib/chart-figure/chart-figure';
 export { tableCsv, type ChartTable } from './lib/chart-figure/chart-export';
 export { type ChartPalette, readPalette } from './lib/chart-figure/chart-palette';
 export { zoomWindow, type ZoomKey, type ZoomWindow } from './lib/chart-figure/zoom-keys';
-export { ParameterForm } from './lib/parameter-form/parameter-form';
+export { ParameterForm, type ParameterProblem } from './lib/parameter-form/parameter-form';
 export {
   parameterGroups,
   fieldProblem,
   applyParameters,
+  checkParameters,
+  parameterFieldId,
+  fieldErrorMessages,
+  PARAMETER_ID_PREFIX,
+  type ParameterCheck,
   type ParameterBounds,
   type ParameterField,
   type ParameterGroup,

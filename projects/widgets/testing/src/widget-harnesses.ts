@@ -158,18 +158,43 @@ export class ParameterFormHarness extends ComponentHarness {
 
   /** Types a value into the numeric field whose label starts with `label`. */
   async setValue(label: string, value: string): Promise<void> {
-    for (const input of await this.inputs()) {
-      const id = await input.getAttribute('id');
-      const host = this.documentRootLocatorFactory();
-      const labelEl = await host.locatorForOptional(`label[for="${id}"]`)();
-      if (labelEl && (await labelEl.text()).startsWith(label)) {
-        await input.clear();
-        await input.sendKeys(value);
-        await input.blur();
-        return;
-      }
-    }
-    throw new Error(`no field labelled "${label}"`);
+    const input = await this.field(label);
+    await input.clear();
+    await input.sendKeys(value);
+    await input.blur();
+  }
+
+  /** The ids of the numeric fields in order, e.g. `tropline-param-levels-1-handlingTime`. */
+  async getFieldIds(): Promise<string[]> {
+    return Promise.all((await this.inputs()).map(async (i) => (await i.getAttribute('id')) ?? ''));
+  }
+
+  /** The id of the numeric field whose label starts with `label`. */
+  async getFieldId(label: string): Promise<string> {
+    return (await (await this.field(label)).getAttribute('id')) ?? '';
+  }
+
+  /** Whether the field whose label starts with `label` is marked invalid (`aria-invalid`). */
+  async isFieldInvalid(label: string): Promise<boolean> {
+    return (await (await this.field(label)).getAttribute('aria-invalid')) === 'true';
+  }
+
+  /**
+   * The message tied to the field whose label starts with `label` by `aria-describedby` (its
+   * error, the form's own or the server's), or null when it has none.
+   */
+  async getFieldError(label: string): Promise<string | null> {
+    const input = await this.field(label);
+    const ids = ((await input.getAttribute('aria-describedby')) ?? '').split(' ');
+    const id = ids.find((i) => i.endsWith('-error'));
+    if (!id) return null;
+    const error = await this.documentRootLocatorFactory().locatorForOptional(`#${id}`)();
+    return error ? (await error.text()).trim() || null : null;
+  }
+
+  /** Whether the form's values are ones the form and the model accept. */
+  async isValid(): Promise<boolean> {
+    return !(await (await this.host()).hasClass('tropline-parameter-form--invalid'));
   }
 
   /** Validation messages on screen. */
@@ -180,5 +205,16 @@ export class ParameterFormHarness extends ComponentHarness {
   /** Resets to the published values. */
   async reset(): Promise<void> {
     await (await this.resetButton()).click();
+  }
+
+  private async field(label: string) {
+    for (const input of await this.inputs()) {
+      const id = await input.getAttribute('id');
+      const labelEl = await this.documentRootLocatorFactory().locatorForOptional(
+        `label[for="${id}"]`,
+      )();
+      if (labelEl && (await labelEl.text()).startsWith(label)) return input;
+    }
+    throw new Error(`no field labelled "${label}"`);
   }
 }

@@ -96,6 +96,10 @@ export interface TroplineStrings {
   readonly tooHigh: (max: string, unit: string) => string;
   /** Message under an empty or non-numeric field. */
   readonly notANumber: string;
+  /** Message under a field at or below a bound it must exceed (a rate that must be above 0). */
+  readonly mustExceed: (min: string, unit: string) => string;
+  /** A field's range under it; `minExclusive` when the lowest value itself is not allowed. */
+  readonly rangeHint: (min: string, max: string, minExclusive: boolean) => string;
   /** Ecological name of each model parameter, by its field name. */
   readonly parameterLabel: Readonly<Record<string, string>>;
   /** Role of level `index` in a chain of `count` levels. */
@@ -229,6 +233,9 @@ export const DEFAULT_TROPLINE_STRINGS: TroplineStrings = {
   tooLow: (min, unit) => `Must be at least ${min}${unit ? ' ' + unit : ''}.`,
   tooHigh: (max, unit) => `Must be at most ${max}${unit ? ' ' + unit : ''}.`,
   notANumber: 'Enter a number.',
+  mustExceed: (min, unit) => `Must be greater than ${min}${unit ? ' ' + unit : ''}.`,
+  rangeHint: (min, max, minExclusive) =>
+    minExclusive ? `more than ${min}, up to ${max}` : `${min} – ${max}`,
   parameterLabel: {
     growthRate: 'Growth rate r',
     carryingCapacity: 'Carrying capacity K',

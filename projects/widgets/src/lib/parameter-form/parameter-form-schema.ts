@@ -1,7 +1,11 @@
 import {
   type ChainModel,
+  ENGINE_LIMITS,
   getParameter,
+  ModelValidationError,
   parameterPointers,
+  parsePointer,
+  type ValidationIssue,
   withParameter,
 } from '@tropline/core/contract';
 import { DEFAULT_TROPLINE_STRINGS, type TroplineStrings } from '../api/tropline-strings';
@@ -38,12 +42,16 @@ export interface ParameterField {
   readonly unit: string;
   /** Published (reset) value. */
   readonly value: number;
-  /** Lowest value allowed. */
+  /** Lowest value allowed, or, when `minExclusive`, the bound a value must exceed. */
   readonly min: number;
+  /** Whether `min` itself is refused (the model needs the value above it, e.g. a growth rate). */
+  readonly minExclusive: boolean;
   /** Highest value allowed. */
   readonly max: number;
   /** Slider step. */
   readonly step: number;
+  /** The slider's lowest position: `min`, or one step above it when `min` is refused. */
+  readonly sliderMin: number;
   /** Whether the reader may change it. */
   readonly editable: boolean;
 }
@@ -107,10 +115,28 @@ function levelOf(model: ChainModel, tokens: string[]): string | undefined {
 }
 
 /**
+ * The lowest value the model contract allows for a parameter: every parameter is at least 0,
+ * and some (growth and attack rates, capacity, efficiency) must be above it. Asked of the
+ * contract itself (`withParameter` validates), so the form follows the schema if it changes.
+ */
+function contractFloor(model: ChainModel, pointer: string): { min: number; exclusive: boolean } {
+  try {
+    withParameter(model, pointer, 0);
+    return { min: 0, exclusive: false };
+  } catch (err) {
+    const refused = err instanceof ModelValidationError;
+    return { min: 0, exclusive: refused && err.errors.some((e) => e.pointer === pointer) };
+  }
+}
+
+/**
  * The form's groups for a model: every numeric parameter, grouped by the level it belongs to
  * (harvest and stocking with their level), labelled with its ecological name and unit. Without
  * `bounds` every parameter is editable from 0 to twice its value; with `bounds` (a published
  * scenario) only the listed ones are, within the publisher's range, the rest shown fixed.
+ * Either way a range never goes past what the model contract accepts: a parameter that must be
+ * above zero gets an exclusive lower bound at zero (its slider starting one step above), and no
+ * maximum exceeds the engine's largest parameter.
  */
 export function parameterGroups(
   model: ChainModel,
@@ -126,8 +152,15 @@ export function parameterGroups(
     if (!level) return;
     const value = getParameter(model, pointer);
     const bound = byPointer.get(pointer);
-    const min = bound?.min ?? 0;
-    const max = bound?.max ?? (value > 0 ? value * 2 : 1);
+    const floor = contractFloor(model, pointer);
+    const asked = bound?.min ?? floor.min;
+    const min = Math.max(asked, floor.min);
+    const minExclusive = floor.exclusive && min <= floor.min;
+    const max = Math.min(
+      bound?.max ?? (value > 0 ? value * 2 : 1),
+      ENGINE_LIMITS.maxParameterMagnitude,
+    );
+    const step = bound?.step ?? niceStep(max - min);
     const field: ParameterField = {
       pointer,
       key: `p${i}`,
@@ -138,8 +171,10 @@ export function parameterGroups(
       unit: unitOf(model, tokens, strings),
       value,
       min,
+      minExclusive,
       max,
-      step: bound?.step ?? niceStep(max - min),
+      step,
+      sliderMin: minExclusive ? Math.min(min + step, max) : min,
       editable: bounds ? !!bound && bound.editable !== false : true,
     };
     fields.set(level, [...(fields.get(level) ?? []), field]);
@@ -160,6 +195,9 @@ export function fieldProblem(
 ): string | null {
   const fmt = new Intl.NumberFormat(locale, { maximumSignificantDigits: 6 });
   if (value === null || value === undefined || !Number.isFinite(value)) return strings.notANumber;
+  if (field.minExclusive && value <= field.min) {
+    return strings.mustExceed(fmt.format(field.min), field.unit);
+  }
   if (value < field.min) return strings.tooLow(fmt.format(field.min), field.unit);
   if (value > field.max) return strings.tooHigh(fmt.format(field.max), field.unit);
   return null;
@@ -176,4 +214,73 @@ export function applyParameters(
       f.editable && values[f.key] !== f.value ? withParameter(m, f.pointer, values[f.key]!) : m,
     model,
   );
+}
+
+/** The outcome of applying the form's values: the new model, or the contract's complaints. */
+export type ParameterCheck =
+  | { readonly ok: true; readonly model: ChainModel }
+  | { readonly ok: false; readonly issues: readonly ValidationIssue[] };
+
+/**
+ * Like {@link applyParameters}, but never throws for a value the model refuses: the refusal comes
+ * back as the contract's issues (pointers into the model), so a form can show them and go on.
+ */
+export function checkParameters(
+  model: ChainModel,
+  fields: readonly ParameterField[],
+  values: Readonly<Record<string, number | null>>,
+): ParameterCheck {
+  try {
+    return { ok: true, model: applyParameters(model, fields, values) };
+  } catch (err) {
+    if (err instanceof ModelValidationError) return { ok: false, issues: err.errors };
+    throw err;
+  }
+}
+
+/** The prefix of the form's field ids unless the host gives another (`idPrefix`). */
+export const PARAMETER_ID_PREFIX = 'tropline-param';
+
+/**
+ * The element id of a parameter's numeric field: the prefix and the pointer's tokens joined by
+ * hyphens, e.g. `/levels/1/handlingTime` → `tropline-param-levels-1-handlingTime`. Stable, so a
+ * host can link to a field (`href="#…"`) or find it in a test.
+ */
+export function parameterFieldId(pointer: string, prefix = PARAMETER_ID_PREFIX): string {
+  const tokens = parsePointer(pointer) ?? [pointer];
+  return [prefix, ...tokens.map((t) => t.replace(/[^A-Za-z0-9_-]/g, '_'))].join('-');
+}
+
+/**
+ * The host's field errors (RFC 9457 `errors[]` of a problem document) that belong to a field,
+ * as messages by field key. An error belongs to a field when its pointer is the parameter's
+ * pointer into the model, or that pointer under `modelPointer` (where the model sits in the
+ * request the errors answer: `/model` in Tropline's projection and scenario bodies).
+ */
+export function fieldErrorMessages(
+  errors: readonly { readonly pointer: string; readonly message: string }[],
+  fields: readonly ParameterField[],
+  modelPointer: string,
+): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const e of errors) {
+    const field = fields.find(
+      (f) => f.editable && (e.pointer === f.pointer || e.pointer === modelPointer + f.pointer),
+    );
+    if (field && !out[field.key]) out[field.key] = contractMessage(e);
+  }
+  return out;
+}
+
+/**
+ * A contract message as it reads under its field: without the field's code name in front
+ * ("growthRate must be greater than zero" → "Must be greater than zero").
+ */
+export function contractMessage(issue: { readonly pointer: string; readonly message: string }) {
+  const name = issue.pointer.split('/').at(-1) ?? '';
+  const rest =
+    name && issue.message.startsWith(name + ' ')
+      ? issue.message.slice(name.length + 1)
+      : issue.message;
+  return rest.charAt(0).toUpperCase() + rest.slice(1);
 }

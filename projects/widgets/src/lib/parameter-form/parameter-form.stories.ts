@@ -18,12 +18,26 @@ shown with their values, marked *Fixed by the publisher*.
 **Inputs.** \`model\` (required): the published model, whose values are the reset values — pass
 the published model, not the edited one, so the form is not rebuilt while someone drags.
 \`bounds\`: the public parameters and their ranges (\`pointer\`, \`min\`, \`max\`, optional \`step\` and
-\`label\`); absent, every parameter opens from 0 to twice its value. \`heading\`: the form's heading
-(default *Model parameters*).
+\`label\`); absent, every parameter opens from 0 to twice its value. Either way a range stays
+within what the model accepts: a parameter that must be above zero (growth and attack rates,
+capacity, efficiency) reads *more than 0* and its slider starts a step above it. \`heading\`: the
+form's heading (default *Model parameters*). \`fieldErrors\`: a problem document's \`errors[]\`
+(e.g. \`TroplineApiError.fieldErrors\`); each is shown under the field its JSON Pointer names
+(\`/model/levels/0/growthRate\`, or the pointer into the model itself; \`modelPointer\` says where
+the model sits in the request, default \`/model\`) until the reader edits that field. \`idPrefix\`:
+start of the field ids (default \`tropline-param\`).
 
-**Outputs.** \`modelChange\`: every valid edit, as the whole model with the new values — a value
-outside its range is refused on the spot with a message and never emitted. \`resetToPublished\`:
-the reader pressed *Reset to the published values*.
+**Field ids.** Each numeric field's id is the prefix and its parameter's pointer, e.g.
+\`tropline-param-levels-1-handlingTime\` for \`/levels/1/handlingTime\` (\`parameterFieldId()\`, or the
+form's \`fieldId(pointer)\`), so a host's error summary can link to it. A second form on the page
+with the same prefix gets \`tropline-param-2-…\`.
+
+**Outputs and state.** \`modelChange\`: every valid edit, as the whole model with the new values — a
+value outside its range or refused by the model is refused on the spot with a message under its
+field and never emitted; later edits go on as before. \`validChange\`: the validity, each time it
+changes. \`valid()\` and \`problems()\` (signals on the component): whether the values are
+acceptable, and every message shown with its field's pointer, id and label (the server's marked
+\`fromServer\`). \`resetToPublished\`: the reader pressed *Reset to the published values*.
 
 **Accessibility.** A \`form\` named by its heading; one \`fieldset\` and \`legend\` per level. Each
 field has a visible label, its range as a hint and its error as text (\`aria-invalid\` set); the
@@ -61,6 +75,26 @@ export const PublishedBounds: Story = {
         label: 'Nutrient load (as carrying capacity K)',
       },
       { pointer: '/levels/2/mortality', min: 0.001, max: 0.02 },
+    ],
+  },
+};
+
+/**
+ * The host passes the server's refusal (a problem document's `errors[]`): each message sits
+ * under the field its pointer names, the field marked invalid, until the reader edits it.
+ */
+export const ErrorsFromTheServer: Story = {
+  args: {
+    ...PublishedBounds.args,
+    fieldErrors: [
+      {
+        pointer: '/model/levels/0/carryingCapacity',
+        message: "must be between 20 and 50, the publisher's range",
+      },
+      {
+        pointer: '/model/levels/2/mortality',
+        message: "must be between 0.001 and 0.015, the publisher's range",
+      },
     ],
   },
 };
