@@ -106,6 +106,14 @@ describe('values where a level dies out without peaks', () => {
     expect(option.yAxis.scale).toBe(false);
   });
 
+  it('gives the square marker no legend entry when no collapse has peaks to plot', () => {
+    const onlyDeclining = bifurcationChartOptions(
+      { points: dying.points.filter((p) => p.regime !== 'collapse' || !p.maxima.length) },
+      { axes, colors, textColor: '#000', locale: 'en' },
+    ) as { series: SeriesLike[] };
+    expect(onlyDeclining.series.map((s) => s.id)).toEqual(['cycle', 'collapse-declining']);
+  });
+
   it('says them in the summary and the table', () => {
     expect(describeBifurcation(dying, axes, 'de')).toContain(
       'At 2 values (0,02, 0,025) the level declines toward zero without peaks; these are ' +

@@ -134,7 +134,10 @@ export function bifurcationChartOptions(
   const fmt = new Intl.NumberFormat(settings.locale, { maximumSignificantDigits: 4 });
   const text = settings.textColor;
   const values = result.points.map((p) => p.value);
-  const present = REGIMES.filter((r) => result.points.some((p) => p.regime === r));
+  // Only regimes with maxima to plot: an empty series would still take a legend entry.
+  const present = REGIMES.filter((r) =>
+    result.points.some((p) => p.regime === r && p.maxima.length),
+  );
   const series: Record<string, unknown>[] = present.map((regime) => ({
     id: regime,
     name: `${strings.regimeName[regime]} ${SHAPE_WORDS[regime]}`,
