@@ -61,26 +61,39 @@ describe('console: an analyst edits a scenario, compares versions and runs every
     );
     expect(under).toMatch(/Must be at most 2000/);
 
-    // A growth rate of zero is refused (the model needs it above zero): the summary names the
-    // parameter-form field and its link puts the focus in that field of the library's form.
+    // A growth rate of zero is refused (the model needs it above zero): the form says so under
+    // the field, the summary names it and its link (to the field's id) puts the focus there.
     const growth = page
       .locator('tropline-parameter-form fieldset')
       .first()
       .getByRole('spinbutton', { name: /Growth rate/ });
     await growth.fill('0');
     await growth.press('Tab');
+    expect(await growth.getAttribute('id')).toBe('tropline-param-levels-0-growthRate');
+    expect(await growth.getAttribute('aria-invalid')).toBe('true');
+    const growthNote = await page.evaluate(
+      (ids) =>
+        (ids ?? '')
+          .split(' ')
+          .map((id) => document.getElementById(id)?.textContent ?? '')
+          .join(' '),
+      await growth.getAttribute('aria-describedby'),
+    );
+    expect(growthNote).toMatch(/Must be greater than 0 per year/);
     await page.getByRole('button', { name: 'Save as version 2' }).click();
-    const link = summary.getByRole('link', { name: /^Heather.*Growth rate.*: Enter a value from/ });
+    const link = summary.getByRole('link', {
+      name: /^Heather.*Growth rate.*: Must be greater than 0 per year/,
+    });
     await link.waitFor();
     await link.press('Enter');
     await expect
       .poll(() =>
         page.evaluate(() => {
           const el = document.activeElement as HTMLInputElement;
-          return `${!!el.closest('tropline-parameter-form')} ${el.type} ${el.value}`;
+          return `${el.id} ${el.type} ${el.value}`;
         }),
       )
-      .toBe('true number 0');
+      .toBe('tropline-param-levels-0-growthRate number 0');
     await growth.fill('0.8');
     await growth.press('Tab');
 

@@ -25,6 +25,7 @@ import {
   formatUnit,
   ParameterForm,
   TROPLINE_STRINGS,
+  type ApiFieldError,
 } from '@tropline/widgets';
 import { firstValueFrom } from 'rxjs';
 import { ConfirmDialog, type ConfirmData } from '../common/confirm-dialog';
@@ -42,7 +43,6 @@ import {
   fieldTarget,
   HORIZON_RANGE,
   MAX_CHANGE_NOTE,
-  parameterFields,
   type EditorValues,
   type FieldTarget,
 } from './scenario-editor-form';
@@ -150,7 +150,10 @@ export class ScenarioEditPage {
   protected readonly parameterProblems = computed(() =>
     this.problems().filter((p) => p.target.kind === 'parameter'),
   );
+  /** The server's field errors of the last save, which the parameter form puts on its fields. */
+  protected readonly serverErrors = signal<readonly ApiFieldError[]>([]);
   private readonly summary = viewChild<ElementRef<HTMLElement>>('summary');
+  private readonly parameterForm = viewChild(ParameterForm);
   private saved = false;
 
   constructor() {
@@ -166,6 +169,7 @@ export class ScenarioEditPage {
     this.conflict.set(false);
     this.failure.set(undefined);
     this.problems.set([]);
+    this.serverErrors.set([]);
     await this.data.load();
     const content = this.data.value()?.latest.content;
     if (!content) return;
@@ -205,7 +209,7 @@ export class ScenarioEditPage {
     this.failure.set(undefined);
     const model = this.edited() ?? content.model;
     const body = editedBody(content, model, this.values(), d.latest.version);
-    const found = [...this.outOfRangeParameters(), ...editProblems(body)];
+    const found = [...this.parameterFormProblems(), ...editProblems(body)];
     if (found.length) return this.show(found, d.latest);
     this.saving.set(true);
     try {
@@ -218,7 +222,10 @@ export class ScenarioEditPage {
       const p = problemText(err, 'save the version');
       // A newer version (409 at /baseVersion) belongs to no field: the alert offers what to do.
       this.conflict.set(p.status === 409);
-      if (p.fields.length && p.status !== 409) this.show(p.fields, d.latest);
+      if (p.fields.length && p.status !== 409) {
+        this.serverErrors.set(p.fields);
+        this.show(p.fields, d.latest);
+      }
       this.failure.set(p.fields.length && p.status !== 409 ? undefined : p);
     } finally {
       this.saving.set(false);
@@ -232,13 +239,19 @@ export class ScenarioEditPage {
       p.target.kind === 'field'
         ? this.host.nativeElement.querySelector<HTMLElement>(`#${p.target.id}`)
         : p.target.kind === 'parameter'
-          ? this.parameterInput(p.target.index)
+          ? this.host.nativeElement.querySelector<HTMLElement>(`#${this.parameterId(p.target)}`)
           : null;
     el?.focus();
   }
 
   protected href(p: ShownProblem): string {
-    return p.target.kind === 'field' ? `#${p.target.id}` : '#tc-edit-parameters';
+    if (p.target.kind === 'field') return `#${p.target.id}`;
+    return p.target.kind === 'parameter' ? `#${this.parameterId(p.target)}` : '#';
+  }
+
+  /** The id the parameter form gives a parameter's field (from its pointer). */
+  private parameterId(target: FieldTarget & { kind: 'parameter' }): string {
+    return this.parameterForm()?.fieldId(target.pointer) ?? 'tc-edit-parameters';
   }
 
   /** Whether leaving loses edits; asks first when it does. */
@@ -263,38 +276,17 @@ export class ScenarioEditPage {
     return { ...v, levels: v.levels.map((l) => ({ ...l })) };
   }
 
-  /** The parameter form keeps an out-of-range value to itself; find those fields. */
-  private outOfRangeParameters(): FieldProblem[] {
-    const model = this.data.value()?.latest.content?.model;
-    if (!model) return [];
-    const inputs = this.parameterInputs();
-    const bounds = new Map(this.bounds().map((b) => [b.pointer, b]));
-    return parameterFields(model).flatMap((f, i) => {
-      const el = inputs[i];
-      const b = bounds.get(f.pointer);
-      const v = el ? el.valueAsNumber : NaN;
-      if (!el || !b || (Number.isFinite(v) && v >= b.min && v <= b.max)) return [];
-      return [
-        {
-          pointer: `/model${f.pointer}`,
-          message: Number.isFinite(v)
-            ? `Enter a value from ${b.min} to ${b.max}.`
-            : 'Enter a number.',
-        },
-      ];
-    });
-  }
-
-  private parameterInputs(): HTMLInputElement[] {
-    return Array.from(
-      this.host.nativeElement.querySelectorAll<HTMLInputElement>(
-        'tropline-parameter-form input[type="number"]',
-      ),
-    );
-  }
-
-  private parameterInput(index: number): HTMLInputElement | null {
-    return this.parameterInputs()[index] ?? null;
+  /**
+   * What the parameter form refuses (out of range, or a value the model refuses): it keeps such
+   * a value to itself and emits nothing, so a save would otherwise send the last valid model.
+   */
+  private parameterFormProblems(): FieldProblem[] {
+    const form = this.parameterForm();
+    if (!form || form.valid()) return [];
+    return form
+      .problems()
+      .filter((p) => !p.fromServer)
+      .map((p) => ({ pointer: `/model${p.pointer}`, message: p.message }));
   }
 
   private show(found: readonly FieldProblem[], latest: ScenarioVersion): void {

@@ -79,13 +79,9 @@ describe('scenario editor form', () => {
     expect(fieldTarget('/initial/deer', m)).toMatchObject({ id: fieldId.initial(1) });
     expect(fieldTarget('/model/levels/2/name', m)).toMatchObject({ id: fieldId.levelName(2) });
     expect(fieldTarget('/model/levels/0/unit', m)).toMatchObject({ id: fieldId.levelUnit(0) });
-    // The parameter form lists fields level by level; the index is the field's place there.
-    const order = parameterGroups(m).flatMap((g) => g.fields.map((f) => f.pointer));
+    // A parameter-form field by its pointer into the model (the form derives its id from it).
     const target = fieldTarget('/model/levels/1/mortality', m);
-    expect(target).toMatchObject({
-      kind: 'parameter',
-      index: order.indexOf('/levels/1/mortality'),
-    });
+    expect(target).toMatchObject({ kind: 'parameter', pointer: '/levels/1/mortality' });
     expect(target.label).toMatch(/^Red deer \(Cervus elaphus\): /);
     expect(fieldTarget('/baseVersion', m)).toEqual({ kind: 'form', label: '' });
   });
@@ -103,20 +99,27 @@ describe('scenario editor form', () => {
     const [field] = problemText(err, 'save').fields;
     expect(fieldTarget(field!.pointer, content.model)).toMatchObject({
       kind: 'parameter',
-      index: 0,
+      pointer: '/levels/0/growthRate',
     });
   });
 
-  it('lets the parameter form go to zero only where the contract allows zero', () => {
+  it('lets the parameter form move every parameter from zero to ten times its value', () => {
     const bounds = editingBounds(content.model);
-    const of = (pointer: string) => bounds.find((b) => b.pointer === pointer);
     expect(bounds.length).toBe(parameterFields(content.model).length);
-    // Capacity must stay above zero (chain-model schema); mortality may be zero.
-    expect(of('/levels/0/carryingCapacity')).toEqual({
+    // The form holds the ones the contract needs above zero there itself (widgets' spec).
+    expect(bounds.find((b) => b.pointer === '/levels/0/carryingCapacity')).toEqual({
       pointer: '/levels/0/carryingCapacity',
-      min: 5,
+      min: 0,
       max: 5000,
     });
-    expect(of('/levels/1/mortality')).toEqual({ pointer: '/levels/1/mortality', min: 0, max: 3 });
+    const fields = parameterGroups(content.model, bounds).flatMap((g) => g.fields);
+    expect(fields.find((f) => f.pointer === '/levels/0/growthRate')).toMatchObject({
+      min: 0,
+      minExclusive: true,
+    });
+    expect(fields.find((f) => f.pointer === '/levels/1/mortality')).toMatchObject({
+      min: 0,
+      minExclusive: false,
+    });
   });
 });

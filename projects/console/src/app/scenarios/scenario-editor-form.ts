@@ -3,7 +3,6 @@ import {
   parameterPointers,
   getParameter,
   validateScenarioContent,
-  withParameter,
   type ChainModel,
 } from '@tropline/core';
 import { parameterGroups, type ParameterBounds } from '@tropline/widgets';
@@ -102,7 +101,7 @@ export function editProblems(body: ScenarioSaveBody): FieldProblem[] {
 /** Where on the form a pointer of a save lands. */
 export type FieldTarget =
   | { readonly kind: 'field'; readonly id: string; readonly label: string }
-  | { readonly kind: 'parameter'; readonly index: number; readonly label: string }
+  | { readonly kind: 'parameter'; readonly pointer: string; readonly label: string }
   | { readonly kind: 'form'; readonly label: '' };
 
 /** The element id of a form field (stable, so messages can link to it). */
@@ -120,7 +119,7 @@ export const fieldId = {
 /**
  * Maps a pointer of the save body (from the contract check or the server's problem) onto the
  * form field that holds it: the text fields, a level's name, unit or start, or one field of the
- * parameter form (by its position among the model's parameters, the order the form lists them).
+ * parameter form (by the parameter's pointer into the model, which gives that field's id).
  * Anything else belongs to the form as a whole.
  */
 export function fieldTarget(pointer: string, model: ChainModel): FieldTarget {
@@ -147,9 +146,8 @@ export function fieldTarget(pointer: string, model: ChainModel): FieldTarget {
       : { kind: 'field', id: fieldId.levelUnit(i), label: `Unit of ${levelName(i)}` };
   }
   if (pointer.startsWith('/model/')) {
-    const fields = parameterFields(model);
-    const index = fields.findIndex((f) => f.pointer === pointer.slice('/model'.length));
-    if (index >= 0) return { kind: 'parameter', index, label: fields[index]!.label };
+    const field = parameterFields(model).find((f) => f.pointer === pointer.slice('/model'.length));
+    if (field) return { kind: 'parameter', pointer: field.pointer, label: field.label };
   }
   return { kind: 'form', label: '' };
 }
@@ -165,26 +163,14 @@ export function parameterFields(model: ChainModel): { pointer: string; label: st
 }
 
 /**
- * How far the analyst may move each parameter in the parameter form: up to ten times the saved
- * value (1 for a parameter now at zero), down to zero where the contract allows zero (mortality,
- * handling time, harvest) and to a hundredth of the value where it must stay above zero (growth,
- * capacity, attack rate, efficiency): the form then refuses what the model would refuse.
+ * How far the analyst may move each parameter in the parameter form: from zero up to ten times
+ * the saved value (1 for a parameter now at zero). The form itself keeps a parameter the model
+ * needs above zero (growth, capacity, attack rate, efficiency) above zero, from the contract.
  */
 export function editingBounds(model: ChainModel): ParameterBounds[] {
   return parameterPointers(model).map((pointer) => {
     const value = getParameter(model, pointer);
-    const round = (x: number) => Number(x.toPrecision(2));
-    let zeroAllowed = true;
-    try {
-      withParameter(model, pointer, 0);
-    } catch {
-      zeroAllowed = false;
-    }
-    return {
-      pointer,
-      min: zeroAllowed ? 0 : value > 0 ? round(value / 100) : 1e-3,
-      max: value > 0 ? Number((value * 10).toPrecision(3)) : 1,
-    };
+    return { pointer, min: 0, max: value > 0 ? Number((value * 10).toPrecision(3)) : 1 };
   });
 }
 
