@@ -80,8 +80,9 @@ export const PublishedBounds: Story = {
 };
 
 /**
- * The host passes the server's refusal (a problem document's `errors[]`): each message sits
- * under the field its pointer names, the field marked invalid, until the reader edits it.
+ * The host passes the server's refusal (a problem document's `errors[]`; here the publisher
+ * narrowed the ranges after the page loaded): each message sits under the field its pointer
+ * names, the field marked invalid and the message tied to it, until the reader edits it.
  */
 export const ErrorsFromTheServer: Story = {
   args: {
@@ -89,7 +90,7 @@ export const ErrorsFromTheServer: Story = {
     fieldErrors: [
       {
         pointer: '/model/levels/0/carryingCapacity',
-        message: "must be between 20 and 50, the publisher's range",
+        message: "must be between 20 and 35, the publisher's range",
       },
       {
         pointer: '/model/levels/2/mortality',
