@@ -68,6 +68,7 @@ export class AuditRepository {
       action: r.action,
       target: r.target ?? undefined,
       detail: r.detail ? (JSON.parse(r.detail) as Record<string, unknown>) : undefined,
+      address: r.address ?? undefined,
       at: r.at,
     }));
   }

@@ -2,7 +2,7 @@ import { Router, type Request, type RequestHandler } from 'express';
 import type { Action } from '@tropline/core';
 import { requireTenantAction } from '../accounts/access-guard';
 import type { SessionStack } from '../accounts/session-stack';
-import { accessOf, userOf } from '../accounts/signed-in-user';
+import { accessOf, clientAddress, userOf } from '../accounts/signed-in-user';
 import { principalOf, type KeyPrincipal } from '../auth/key-principal';
 import { keyGuard } from '../auth/require-key';
 import { ProblemError } from '../http/problem';
@@ -19,6 +19,8 @@ export interface Actor {
   readonly principal?: KeyPrincipal;
   /** The signed-in user's id, when a session called. */
   readonly userId?: string;
+  /** The caller's address, for the audit trail. */
+  readonly address?: string;
 }
 
 /** The actor the guard attached. */
@@ -29,7 +31,10 @@ export function actorOf(req: Request): Actor {
 }
 
 function setActor(req: Request, actor: Actor): void {
-  (req as Request & { scenarioActor?: Actor }).scenarioActor = actor;
+  (req as Request & { scenarioActor?: Actor }).scenarioActor = {
+    ...actor,
+    address: clientAddress(req),
+  };
 }
 
 /** What a scenario route needs: the role-matrix action (sessions) and the scope (keys). */

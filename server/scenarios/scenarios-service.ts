@@ -200,7 +200,10 @@ export class ScenariosService {
     };
   }
 
-  /** Publishes a draft; the version published before it is retired in the same transaction. */
+  /**
+   * Publishes a draft; the version published before it is retired in the same transaction, and
+   * the one audit event of the publication names it (`detail.replaced`).
+   */
   async publish(actor: Actor, id: string, n: number) {
     const v = await this.requireVersion(actor, id, n);
     if (v.status !== 'draft') {
@@ -211,29 +214,20 @@ export class ScenariosService {
     const at = this.iso();
     return this.repository.transaction(async (repo) => {
       const s = (await repo.find(actor.tenantId, id))!;
-      const audit = new AuditRepository(repo.db);
-      if (s.publishedVersion !== null) {
-        await repo.setStatus(id, s.publishedVersion, 'published', 'retired', at);
-        await audit.record({
-          tenantId: actor.tenantId,
-          actor: actor.actor,
-          action: 'scenario.retired',
-          target: `scenario:${id}`,
-          detail: { version: s.publishedVersion, replacedBy: n },
-          at,
-        });
-      }
+      const replaced = s.publishedVersion;
+      if (replaced !== null) await repo.setStatus(id, replaced, 'published', 'retired', at);
       if (!(await repo.setStatus(id, n, 'draft', 'published', at))) {
         throw conflict(`Version ${n} changed state meanwhile; reload it.`);
       }
       const publicId = s.publicId ?? newPublicId(v.content.name);
       await repo.setPublished(id, n, publicId);
-      await audit.record({
+      await new AuditRepository(repo.db).record({
         tenantId: actor.tenantId,
         actor: actor.actor,
         action: 'scenario.published',
         target: `scenario:${id}`,
-        detail: { version: n, publicId },
+        detail: replaced !== null ? { version: n, publicId, replaced } : { version: n, publicId },
+        address: actor.address,
         at,
       });
       return { publicId, version: versionView((await repo.version(id, n))!) };
@@ -259,6 +253,7 @@ export class ScenariosService {
         action: 'scenario.retired',
         target: `scenario:${id}`,
         detail: { version: n },
+        address: actor.address,
         at,
       });
       return { version: versionView((await repo.version(id, n))!) };

@@ -88,8 +88,17 @@ describe('scenario versions over HTTP (keys and sessions)', () => {
     const events = await new AuditRepository(h.app.locals.tropline.db).listForTenant(
       DEMO_TENANT.id,
     );
-    const actions = events.filter((e) => e.target === `scenario:${id}`).map((e) => e.action);
-    expect(actions).toEqual(['scenario.published', 'scenario.retired', 'scenario.published']);
+    // One event per publication; the second names the version it retired, and each the caller's
+    // address (supertest's loopback).
+    const mine = events.filter((e) => e.target === `scenario:${id}`);
+    expect(mine.map((e) => e.action)).toEqual(['scenario.published', 'scenario.published']);
+    expect(mine.map((e) => e.detail)).toEqual(
+      expect.arrayContaining([
+        { version: 2, publicId, replaced: 1 },
+        { version: 1, publicId },
+      ]),
+    );
+    for (const e of mine) expect(e.address).toMatch(/127\.0\.0\.1|::1/);
   });
 
   it('lets a browser key read only the published version, and bounds its what-ifs', async () => {
