@@ -77,7 +77,9 @@ export class KeysRepository {
           .join('tenants as t', 't.id', 'k.tenant_id')
           .leftJoin('quota_plans as p', 'p.tenant_id', 'k.tenant_id')
           .where('k.id', p.id)
-          .first(
+          // By primary key, so at most one row: no `first()`, whose bound `LIMIT ?` makes
+          // SQLite run this join several times slower.
+          .select(
             'k.*',
             't.slug as tenant_slug',
             'p.monthly_units',

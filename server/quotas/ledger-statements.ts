@@ -45,7 +45,8 @@ export function ledgerQueries(db: Knex) {
     rate: bump('rate_windows', { key_id: 'keyId', window_start: 'windowStart' }, 'count'),
     units: bump('usage_counters', { tenant_id: 'tenantId', period: 'period' }, 'used'),
     used: compileQuery(db, ['tenantId', 'period'], (q, p) =>
-      q('usage_counters').where({ tenant_id: p.tenantId, period: p.period }).first('used'),
+      // By primary key: at most one row, so no `first()` and its bound `LIMIT ?`.
+      q('usage_counters').where({ tenant_id: p.tenantId, period: p.period }).select('used'),
     ),
     refund: compileQuery(db, ['tenantId', 'period', 'by'], (q, p) =>
       q('usage_counters')
