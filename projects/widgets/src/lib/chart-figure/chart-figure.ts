@@ -28,7 +28,9 @@ let nextId = 0;
  * The frame also keeps the chart the size of its stage: a chart first drawn while hidden (in a
  * closed tab, at 0 × 0) is redrawn at its real size once shown, and one whose container changes
  * width is redrawn at the new width. The stage carries `data-animation="on|off"`, read back from
- * the drawn chart's own option, so a host (or a test) can see that reduced motion is honoured.
+ * the drawn chart's own option, so a host (or a test) can see that reduced motion is honoured,
+ * and `data-text-outside`: how many of the drawn texts (axis names, labels, legend) reach past the
+ * canvas after each drawing — 0 when none runs off its edge.
  */
 @Component({
   selector: 'tropline-chart-figure',
@@ -65,6 +67,8 @@ export class ChartFigure {
   private readonly stageSize = injectElementSize(() => this.stage()?.nativeElement);
   /** Whether the drawn chart animates, as its instance reports it after drawing. */
   protected readonly drawnAnimation = signal<'on' | 'off' | undefined>(undefined);
+  /** How many drawn texts reach past the canvas, after the last drawing. */
+  protected readonly textOutside = signal<number | undefined>(undefined);
 
   constructor() {
     // ngx-echarts ignores its observer's first report, which for a chart created hidden is the
@@ -85,7 +89,9 @@ export class ChartFigure {
       const check = () => {
         const option = untracked(this.option);
         // While loading the chart holds a placeholder option; only the real one counts.
-        if (chart.isDisposed() || option === read || untracked(this.loading)) return;
+        if (chart.isDisposed() || untracked(this.loading)) return;
+        this.textOutside.set(textsOutside(chart));
+        if (option === read) return;
         read = option;
         const drawn = (chart.getOption() as { animation?: unknown } | undefined)?.animation;
         this.drawnAnimation.set(drawn === false ? 'off' : 'on');
@@ -138,4 +144,77 @@ export class ChartFigure {
     const csv = tableCsv(this.table());
     saveFile(this.document, `${this.fileName()}.csv`, new Blob([csv], { type: 'text/csv' }));
   }
+}
+
+/** A box in canvas pixels. */
+interface Box {
+  readonly x0: number;
+  readonly y0: number;
+  readonly x1: number;
+  readonly y1: number;
+}
+
+/** A drawn element of the chart's scene (or a clip path), as far as {@link textsOutside} reads it. */
+interface SceneElement {
+  readonly type: string;
+  readonly invisible?: boolean;
+  readonly ignore?: boolean;
+  readonly transform?: ArrayLike<number> | null;
+  /** The clip paths zrender collected for it while drawing, their transforms in canvas pixels. */
+  readonly __clipPaths?: readonly SceneElement[];
+  getBoundingRect(): { x: number; y: number; width: number; height: number };
+}
+
+/** An element's bounding box through its affine transform [a, b, c, d, e, f]. */
+function canvasBox(el: SceneElement): Box {
+  const r = el.getBoundingRect();
+  const m = el.transform ?? [1, 0, 0, 1, 0, 0];
+  const corners = [r.x, r.x + r.width].flatMap((x) =>
+    [r.y, r.y + r.height].map((y) => [
+      m[0]! * x + m[2]! * y + m[4]!,
+      m[1]! * x + m[3]! * y + m[5]!,
+    ]),
+  );
+  const xs = corners.map((c) => c[0]!);
+  const ys = corners.map((c) => c[1]!);
+  return { x0: Math.min(...xs), y0: Math.min(...ys), x1: Math.max(...xs), y1: Math.max(...ys) };
+}
+
+/**
+ * Counts the visible texts of a drawn chart whose box, in canvas pixels, reaches more than a pixel
+ * past the canvas, so a reader sees part of a word. A text wholly outside its clip is not drawn
+ * (a scrolling legend's other pages) and does not count; one its clip cuts (the scrolling
+ * legend's last partial item, which its page arrows lead on to) is ECharts' own and not counted.
+ */
+function textsOutside(chart: EChartsType): number {
+  const scene = chart.getZr().storage.getDisplayList(true) as unknown as readonly SceneElement[];
+  let outside = 0;
+  for (const el of scene) {
+    if ((el.type !== 'tspan' && el.type !== 'text') || el.invisible || el.ignore) continue;
+    const r = el.getBoundingRect();
+    if (!r.width || !r.height) continue;
+    const box = canvasBox(el);
+    const canvas: Box = { x0: 0, y0: 0, x1: chart.getWidth(), y1: chart.getHeight() };
+    let seen = canvas;
+    for (const clip of el.__clipPaths ?? []) {
+      const c = canvasBox(clip);
+      seen = {
+        x0: Math.max(seen.x0, c.x0),
+        y0: Math.max(seen.y0, c.y0),
+        x1: Math.min(seen.x1, c.x1),
+        y1: Math.min(seen.y1, c.y1),
+      };
+    }
+    const hidden = box.x1 <= seen.x0 || box.x0 >= seen.x1 || box.y1 <= seen.y0 || box.y0 >= seen.y1;
+    if (hidden) continue;
+    if (
+      box.x0 < canvas.x0 - 1 ||
+      box.y0 < canvas.y0 - 1 ||
+      box.x1 > canvas.x1 + 1 ||
+      box.y1 > canvas.y1 + 1
+    ) {
+      outside++;
+    }
+  }
+  return outside;
 }

@@ -76,6 +76,47 @@ describe('phasePortraitOptions', () => {
   });
 });
 
+describe('phasePortraitOptions at a known width', () => {
+  const settings = {
+    x,
+    y,
+    transientEnd: 10,
+    equilibria,
+    colors: ['#111', '#222'],
+    textColor: '#000',
+    surface: '#fff',
+    locale: 'en',
+  };
+  interface AxisLike {
+    name: string;
+    nameTextStyle: { width?: number; overflow?: string; align?: string };
+  }
+  type Plane = { xAxis: AxisLike; yAxis: AxisLike; grid: { top: number; bottom: number } };
+
+  it('wraps both axis names to the plot width, the vertical one starting at its axis', () => {
+    // 320 px less the grid's 72 px left and 24 px right margins.
+    const option = phasePortraitOptions(data, { ...settings, width: 320 }) as Plane;
+    expect(option.xAxis.nameTextStyle).toMatchObject({ width: 224, overflow: 'break' });
+    expect(option.yAxis.nameTextStyle).toMatchObject({
+      width: 224,
+      overflow: 'break',
+      align: 'left',
+    });
+    // "Prey (dimensionless)" fits on one line there: the margins stay as they are.
+    expect(option.grid).toMatchObject({ top: 56, bottom: 56 });
+  });
+
+  it('makes room for the extra lines of a name wider than the plot', () => {
+    const narrow = phasePortraitOptions(data, { ...settings, width: 200 }) as Plane;
+    expect(narrow.xAxis.name.length * 6.6).toBeGreaterThan(104);
+    expect(narrow.grid.bottom).toBeGreaterThan(56);
+    expect(narrow.grid.top).toBeGreaterThan(56);
+    const unknown = phasePortraitOptions(data, settings) as Plane;
+    expect(unknown.xAxis.nameTextStyle.overflow).toBeUndefined();
+    expect(unknown.grid).toMatchObject({ top: 56, bottom: 56 });
+  });
+});
+
 describe('describePhasePortrait and phasePortraitTable', () => {
   it('names the axes, the faded transient and the equilibria', () => {
     const text = describePhasePortrait(data, { x, y, equilibria, locale: 'en', transientEnd: 10 });

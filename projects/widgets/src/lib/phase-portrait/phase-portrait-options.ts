@@ -67,7 +67,21 @@ export interface PhasePortraitSettings {
   readonly animation?: boolean;
   /** The wording in use. */
   readonly strings?: TroplineStrings;
+  /**
+   * Width of the chart in CSS pixels, when known: the axis names wrap to the plot's width
+   * instead of running past the canvas (a level's name and unit pass 320 px).
+   */
+  readonly width?: number;
 }
+
+/** The plane's margins around the plot, in pixels, before any room for wrapped axis names. */
+const PLANE_GRID = { left: 72, right: 24, top: 56, bottom: 56 };
+
+/** A 12 px name's width, roughly (common practice: about 0.55 em a character). */
+const nameWidth = (name: string) => name.length * 6.6;
+
+/** One line of a 12 px axis name. */
+const NAME_LINE = 16;
 
 /** The series of one level, by id; a RangeError when the trajectory lacks it. */
 export function levelSeries(data: TrajectoryData, id: string) {
@@ -165,6 +179,13 @@ export function phasePortraitOptions(
   const ys = levelSeries(data, settings.y);
   const text = settings.textColor;
   const cut = transientCut(data.times, settings.transientEnd);
+  const xName = `${xs.name} (${formatUnit(xs.unit)})`;
+  const yName = `${ys.name} (${formatUnit(ys.unit)})`;
+  const plot = settings.width ? settings.width - PLANE_GRID.left - PLANE_GRID.right : 0;
+  const wrapped = plot > 0 ? { width: plot, overflow: 'break' } : {};
+  // Room for each name's extra lines, so a wrapped name meets neither the legend nor the edge.
+  const extra = (name: string) =>
+    plot > 0 ? (Math.ceil(nameWidth(name) / plot) - 1) * NAME_LINE : 0;
   const pairs = data.times.map((_, k) => [xs.values[k]!, ys.values[k]!]);
   const line = settings.colors[0] ?? '#1565c0';
   const nullColor = settings.colors[1] ?? '#b0561d';
@@ -183,23 +204,28 @@ export function phasePortraitOptions(
       label: { description: describePhasePortrait(data, settings) },
       decal: { show: true },
     },
-    grid: { left: 72, right: 24, top: 56, bottom: 56 },
+    grid: {
+      ...PLANE_GRID,
+      top: PLANE_GRID.top + extra(yName),
+      bottom: PLANE_GRID.bottom + extra(xName),
+    },
     legend: { top: 0, type: 'scroll', textStyle: { color: text } },
     tooltip: { trigger: 'item', valueFormatter: (v: number) => fmt.format(v) },
     xAxis: {
       type: 'value',
-      name: `${xs.name} (${formatUnit(xs.unit)})`,
+      name: xName,
       nameLocation: 'middle',
       nameGap: 30,
-      nameTextStyle: { color: text },
+      nameTextStyle: { color: text, ...wrapped },
       axisLabel: { color: text, formatter: (v: number) => fmt.format(v) },
       ...axisStyle(text),
       min: 0,
     },
     yAxis: {
       type: 'value',
-      name: `${ys.name} (${formatUnit(ys.unit)})`,
-      nameTextStyle: { color: text },
+      name: yName,
+      // From the axis rightwards: centred on it, a long name ran off the canvas's left edge.
+      nameTextStyle: { color: text, align: 'left', ...wrapped },
       axisLabel: { color: text, formatter: (v: number) => fmt.format(v) },
       ...axisStyle(text),
       min: 0,

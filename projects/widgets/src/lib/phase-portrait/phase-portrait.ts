@@ -146,6 +146,7 @@ export class PhasePortrait {
       locale: this.options.locale,
       animation: !this.reducedMotion(),
       strings: this.strings,
+      width: this.canvasSize().width,
     };
   });
   private readonly boxSettings = computed(() => {

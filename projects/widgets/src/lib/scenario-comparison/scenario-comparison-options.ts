@@ -143,6 +143,8 @@ export function comparisonChartOptions(
       width: `${100 / cols - 9}%`,
       top: rowHeight ? `${legend + r * rowHeight + 28}px` : `${(r * 100) / rows + 14}%`,
       height: rowHeight ? `${rowHeight - 64}px` : `${100 / rows - 24}%`,
+      // A 6 % margin is about 18 px at 320 px wide, less than a two-digit axis label needs.
+      containLabel: true,
     };
   });
   return {

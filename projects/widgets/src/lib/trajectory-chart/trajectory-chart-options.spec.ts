@@ -29,7 +29,10 @@ interface SeriesLike {
   lineStyle?: { opacity?: number; type?: unknown };
   yAxisIndex: number;
   data: [number, number | null][];
-  markArea?: { data: [{ xAxis: number }, { xAxis: number }][] };
+  markArea?: {
+    data: [{ xAxis: number }, { xAxis: number }][];
+    label: { position: string };
+  };
 }
 
 describe('trajectoryChartOptions', () => {
@@ -60,6 +63,8 @@ describe('trajectoryChartOptions', () => {
     const band = mark.markArea!.data[0]!;
     expect(band[0].xAxis).toBe(1.5);
     expect(band[1].xAxis).toBe(2);
+    // Written from the band's right end, so it stays on the canvas however narrow the band.
+    expect(mark.markArea!.label.position).toBe('insideTopRight');
     const deer = option.series.filter((s) => s.name === 'Red deer');
     expect(deer.map((s) => s.data.map((p) => p[0]))).toEqual([[0, 1, 2], [2]]);
     expect(deer[1]!.lineStyle!.opacity).toBeLessThan(0.5);

@@ -241,7 +241,9 @@ export function trajectoryChartOptions(
           markArea: {
             silent: true,
             itemStyle: { color: 'rgba(128, 128, 128, 0.14)' },
-            label: { color: text, position: 'insideTop', formatter: strings.pastHorizon },
+            // From the band's right end leftwards: centred on a narrow band near the end, the
+            // label ran past the canvas at 320 px.
+            label: { color: text, position: 'insideTopRight', formatter: strings.pastHorizon },
             data: [[{ xAxis: horizon }, { xAxis: end }]],
           },
           markLine: {
