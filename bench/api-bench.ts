@@ -5,8 +5,9 @@
  * computation called in-process in the same run. Prints figures and ratios; asserts nothing.
  * The machine's load average is printed with them: on shared cores the figures move with it.
  */
-import { spawn } from 'node:child_process';
+import { execSync, spawn } from 'node:child_process';
 import { mkdtempSync, readFileSync } from 'node:fs';
+import { Agent, request } from 'node:http';
 import { loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -59,7 +60,14 @@ function inProcess(rounds: number, perRound: number): { computeMs: number; withJ
   return { computeMs: median(compute), withJsonMs: median(withJson) };
 }
 
-async function startServer(file: string): Promise<{ url: string; stop: () => void }> {
+/** CPU seconds a process has used (user + system, all its threads), from Linux's /proc. */
+function cpuSeconds(pid: number): number {
+  const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1]!.split(' ');
+  const ticks = Number(execSync('getconf CLK_TCK').toString().trim());
+  return (Number(fields[11]) + Number(fields[12])) / ticks; // utime and stime (fields 14, 15)
+}
+
+async function startServer(file: string): Promise<{ url: string; pid: number; stop: () => void }> {
   const child = spawn(process.execPath, ['--import', 'tsx', 'server/main.ts'], {
     cwd: ROOT,
     env: {
@@ -77,7 +85,10 @@ async function startServer(file: string): Promise<{ url: string; stop: () => voi
     child.stdout!.on('data', (d) => {
       out += d;
       const m = /listening on (\d+)/.exec(out);
-      if (m) resolve({ url: `http://127.0.0.1:${m[1]}`, stop: () => child.kill('SIGTERM') });
+      if (m) {
+        const url = `http://127.0.0.1:${m[1]}`;
+        resolve({ url, pid: child.pid!, stop: () => child.kill('SIGTERM') });
+      }
     });
     child.once('exit', (code) => reject(new Error(`server exited ${code}`)));
   });
@@ -139,7 +150,9 @@ async function main(): Promise<void> {
       requests: [{ setupRequest: (req) => ({ ...req, body: JSON.stringify(body(++i)) }) }],
     });
   await uncached(1, 200); // warm the server
+  let cpu = cpuSeconds(server.pid);
   const serial = await uncached(1, 1000);
+  const serialCpuMs = ((cpuSeconds(server.pid) - cpu) * 1000) / serial.requests.total;
   const parallel = await uncached(50, 3000);
   const cachedBody = JSON.stringify(body(0));
   await run({
@@ -150,6 +163,7 @@ async function main(): Promise<void> {
     amount: 100,
     connections: 1,
   });
+  cpu = cpuSeconds(server.pid);
   const cached = await run({
     url: `${server.url}/api/v1/projections`,
     method: 'POST',
@@ -158,19 +172,26 @@ async function main(): Promise<void> {
     connections: 50,
     duration: 10,
   });
+  const cachedCpuMs = ((cpuSeconds(server.pid) - cpu) * 1000) / cached.requests.total;
   // Server-side time from Server-Timing, one request at a time: what the stack adds beyond the
   // engine, without the loopback network or the client. The mean is the target's measure; the
   // median shows how much of it is the scheduler's occasional delay on a shared machine.
+  // node:http sends head and body in one write (as autocannon does), so the server's clock does
+  // not include waiting for a body sent after its head.
+  const agent = new Agent({ keepAlive: true });
   const timings: Record<string, number>[] = [];
   for (let k = 0; k < 300; k++) {
-    const res = await fetch(`${server.url}/api/v1/projections`, {
-      method: 'POST',
-      headers,
-      body: JSON.stringify(body(++i)),
+    const timing = await new Promise<string | undefined>((resolve, reject) => {
+      const req = request(`${server.url}/api/v1/projections`, { method: 'POST', headers, agent });
+      req.once('response', (res) => {
+        res.resume().once('end', () => resolve(res.headers['server-timing'] as string));
+      });
+      req.once('error', reject);
+      req.end(JSON.stringify(body(++i)));
     });
-    await res.arrayBuffer();
-    timings.push(serverTiming(res.headers.get('server-timing')));
+    timings.push(serverTiming(timing ?? null));
   }
+  agent.destroy();
   server.stop();
   const mean = (f: (t: Record<string, number>) => number) =>
     timings.reduce((s, t) => s + f(t), 0) / timings.length;
@@ -187,12 +208,18 @@ async function main(): Promise<void> {
       `${fmt(serial.latency.mean - base.computeMs)} ms over in-process compute ` +
       `(ratio ${fmt(serial.latency.mean / base.computeMs)}×)`,
   );
+  const both = (f: (t: Record<string, number>) => number) =>
+    `${fmt(mean(f))} ms (median ${fmt(median(timings.map(f)))})`;
   console.log(
-    `server-side, uncached: compute ${fmt(mean((t) => t.compute!))} ms; the stack beyond ` +
-      `compute adds ${fmt(mean(beyondCompute))} ms per request (median ` +
-      `${fmt(median(timings.map(beyondCompute)))} ms): JSON ${fmt(mean((t) => t.json!))} ms, ` +
-      `waiting for admission ${fmt(mean((t) => t.admit!))} ms, the rest (logging, headers, ` +
-      `body, key, validation, hash) ${fmt(mean((t) => beyondCompute(t) - t.json! - t.admit!))} ms`,
+    `server-side, uncached: compute ${both((t) => t.compute!)}; the stack beyond compute adds ` +
+      `${both(beyondCompute)} per request: JSON ${both((t) => t.json!)}, waiting for ` +
+      `admission ${both((t) => t.admit!)}, the rest (logging, headers, body, key, validation, ` +
+      `hash) ${both((t) => beyondCompute(t) - t.json! - t.admit!)}`,
+  );
+  console.log(
+    `server CPU per request (all threads, from /proc; steadier than wall time on busy cores): ` +
+      `uncached ${fmt(serialCpuMs)} ms (${fmt(serialCpuMs - base.computeMs)} beyond in-process ` +
+      `compute), cached repeat ${fmt(cachedCpuMs)} ms`,
   );
   console.log(
     `API, 50 connections, uncached: ${parallel.requests.average.toFixed(0)} req/s, ` +

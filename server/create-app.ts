@@ -88,13 +88,17 @@ export function createApp(config: Config, options: AppOptions = {}): TroplineApp
   app.set('query parser', 'simple');
   // Server-Timing's `total` counts from here: logging, headers, body parsing and routing too.
   app.use(stampStart);
-  app.use(
-    pinoHttp({
-      level: config.logLevel,
-      redact: ['req.headers.authorization', 'req.headers.cookie'],
-      autoLogging: { ignore: (req) => !req.url?.startsWith('/api/') },
-    }),
-  );
+  // A request's logger is built (its bindings serialised and redacted) even when nothing will
+  // be logged; with logging off the stack does without it (errors check for `req.log`).
+  if (config.logLevel !== 'silent') {
+    app.use(
+      pinoHttp({
+        level: config.logLevel,
+        redact: ['req.headers.authorization', 'req.headers.cookie'],
+        autoLogging: { ignore: (req) => !req.url?.startsWith('/api/') },
+      }),
+    );
+  }
   app.use(
     helmet({
       contentSecurityPolicy: {
