@@ -90,11 +90,17 @@ export class ChartFigure {
         const option = untracked(this.option);
         // While loading the chart holds a placeholder option; only the real one counts.
         if (chart.isDisposed() || untracked(this.loading)) return;
-        this.textOutside.set(textsOutside(chart));
-        if (option === read) return;
-        read = option;
-        const drawn = (chart.getOption() as { animation?: unknown } | undefined)?.animation;
-        this.drawnAnimation.set(drawn === false ? 'off' : 'on');
+        if (option !== read) {
+          read = option;
+          const drawn = (chart.getOption() as { animation?: unknown } | undefined)?.animation;
+          this.drawnAnimation.set(drawn === false ? 'off' : 'on');
+        }
+        // A probe of the drawn scene: whatever it meets, it must not stop the frame's own work.
+        try {
+          this.textOutside.set(textsOutside(chart));
+        } catch {
+          this.textOutside.set(undefined);
+        }
       };
       chart.on('finished', check);
       onCleanup(() => {
