@@ -32,7 +32,7 @@ start of the field ids (default \`tropline-param\`).
 form's \`fieldId(pointer)\`), so a host's error summary can link to it. A second form on the page
 with the same prefix gets \`tropline-param-2-…\`.
 
-**Outputs and state.** \`modelChange\`: every valid edit, as the whole model with the new values — a
+**Outputs.** \`modelChange\`: every valid edit, as the whole model with the new values — a
 value outside its range or refused by the model is refused on the spot with a message under its
 field and never emitted; later edits go on as before. \`validChange\`: the validity, each time it
 changes. \`valid()\` and \`problems()\` (signals on the component): whether the values are
