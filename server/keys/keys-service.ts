@@ -62,7 +62,11 @@ export function normaliseOrigin(value: string): string | undefined {
   try {
     const url = new URL(value);
     if (url.protocol !== 'https:' && url.protocol !== 'http:') return undefined;
-    if (url.pathname !== '/' || url.search || url.hash || url.username) return undefined;
+    // `new URL` drops an empty query or fragment (`http://a.example#` has hash ''), so look at
+    // the text too: an origin has neither.
+    if (url.pathname !== '/' || /[?#]/.test(value) || url.username || url.password) {
+      return undefined;
+    }
     return url.origin;
   } catch {
     return undefined;
