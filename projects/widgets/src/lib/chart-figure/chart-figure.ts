@@ -103,7 +103,13 @@ export class ChartFigure {
         }
       };
       chart.on('finished', check);
+      // ECharts may have finished drawing before loading ended (no animation under reduced
+      // motion, so no later 'finished'): check again once the option or loading state changes.
+      this.loading();
+      this.option();
+      const later = setTimeout(check, 0);
       onCleanup(() => {
+        clearTimeout(later);
         if (!chart.isDisposed()) chart.off('finished', check);
       });
     });
