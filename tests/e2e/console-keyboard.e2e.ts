@@ -40,6 +40,23 @@ async function expectFocusTrapped(page: Page, where: string): Promise<void> {
   }
 }
 
+/**
+ * Waits until the opened dialog has put the focus on one of its controls (it does so when its
+ * opening animation ends; before that the focus may still be on the container or behind it).
+ */
+async function focusOnDialogControl(page: Page, where: string): Promise<void> {
+  await expect
+    .poll(
+      () =>
+        page.evaluate(() => {
+          const el = document.activeElement;
+          return !!el?.closest('mat-dialog-container') && el.tagName !== 'MAT-DIALOG-CONTAINER';
+        }),
+      { message: `focus on a control of the dialog: ${where}` },
+    )
+    .toBe(true);
+}
+
 /** Waits until no dialog is open. */
 async function dialogClosed(page: Page): Promise<void> {
   await expect.poll(() => page.locator('mat-dialog-container').count()).toBe(0);
@@ -67,6 +84,7 @@ describe('console by keyboard alone: every dialog and form, focus kept and retur
     // Fill it in with keys only: a browser key for one origin.
     await page.keyboard.press('Enter');
     await page.getByRole('dialog', { name: 'Issue an API key' }).waitFor();
+    await focusOnDialogControl(page, 'issue dialog reopened');
     await press(page, /^Browser key/, 'Space');
     await tabTo(page, 'Name');
     await page.keyboard.type('Keyboard portal');
@@ -94,8 +112,12 @@ describe('console by keyboard alone: every dialog and form, focus kept and retur
     await expect.poll(() => focusedName(page)).toBe('Revoke Keyboard portal');
     await page.keyboard.press('Enter');
     await confirm.waitFor();
+    // The dialog moves the focus to Cancel once its opening animation ends: a Tab pressed
+    // before that would be undone, and Enter would land on Cancel.
+    await expect.poll(() => focusedName(page)).toBe('Cancel');
     await press(page, 'Revoke key');
     await dialogClosed(page);
+    await page.getByText('Key “Keyboard portal” revoked.').waitFor({ state: 'attached' });
     await page
       .getByRole('row', { name: /Keyboard portal/ })
       .getByText('Revoked')
