@@ -134,7 +134,8 @@ describe('console: an analyst edits a scenario, compares versions and runs every
     expect(await page.getByRole('status').filter({ hasText: '4 of' }).count()).toBe(1);
     await checkpoint(page, 'edit-05-compare');
     await page.getByRole('checkbox', { name: 'Show only the differences' }).check();
-    expect(await table.locator('tbody tr').count()).toBe(4);
+    // The table redraws after the change is seen: polled, not read at once.
+    await expect.poll(() => table.locator('tbody tr').count()).toBe(4);
     await checkpoint(page, 'edit-06-compare-differences');
     // And their projections, with the library's comparison widget: version 1 against the two
     // numbers version 2 changed (names and units do not change a projection).

@@ -37,9 +37,6 @@ const PAGES: readonly DemoPage[] = [
 
 type Media = Parameters<Page['emulateMedia']>[0];
 
-/** Charts held at 320 px to drawing every text inside their canvas. */
-const TEXT_INSIDE: readonly string[] = ['tropline-trajectory-chart', 'tropline-phase-portrait'];
-
 /** A chart's stage once its real option is drawn (the frame reads the instance back then). */
 const drawn = (chart: string) =>
   `${chart} .tropline-chart-figure__stage[data-animation]:not(.tropline-chart-figure__stage--loading)`;
@@ -284,16 +281,18 @@ describe('widget qualities in Chromium', () => {
         expect(await paintedShare(narrow.page, `${chart} canvas`)).toBeGreaterThan(0.01);
         const stage = narrow.page.locator(`${drawn(chart)}[data-text-outside]`).first();
         await stage.screenshot({ path: resolve(ARTIFACTS, `${demo.name}-320px-${chart}.png`) });
-        // Every word the trajectory chart and the phase portrait drew lies inside its canvas:
-        // axis names, the horizon's label, the legend (the frame counts the drawn texts past
-        // the canvas after each drawing). The comparison's small multiples still report one at
-        // 320 px that the screenshots do not show, and the bifurcation chart is not yet checked.
-        if (!TEXT_INSIDE.includes(chart)) continue;
+        // Every word a chart drew lies inside its canvas: axis names (broken into lines that
+        // fit), the horizon's label, titles, the legend. The frame counts the drawn texts past
+        // the canvas after each drawing and names them in data-text-outside-words.
         await expect
-          .poll(() => stage.getAttribute('data-text-outside'), {
-            message: `${demo.name} at 320 px: ${chart}'s texts past its canvas`,
-            timeout: 30_000,
-          })
+          .poll(
+            async () =>
+              `${await stage.getAttribute('data-text-outside')} ${(await stage.getAttribute('data-text-outside-words')) ?? ''}`.trim(),
+            {
+              message: `${demo.name} at 320 px: ${chart}'s texts past its canvas`,
+              timeout: 30_000,
+            },
+          )
           .toBe('0');
       }
       await narrow.page.screenshot({

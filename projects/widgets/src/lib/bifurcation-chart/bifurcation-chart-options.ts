@@ -1,6 +1,7 @@
 import type { EChartsCoreOption } from 'echarts/core';
 import type { Regime, SweepResult } from '../api/analysis-types';
 import { DEFAULT_TROPLINE_STRINGS, type TroplineStrings } from '../api/tropline-strings';
+import { extraNameHeight, NAME_LINE_STYLE, wrapAxisName } from '../chart-figure/axis-name';
 import { axisStyle } from '../chart-figure/axis-style';
 import type { ChartTable } from '../chart-figure/chart-export';
 
@@ -42,7 +43,15 @@ export interface BifurcationSettings {
   readonly locale: string;
   /** The wording in use. */
   readonly strings?: TroplineStrings;
+  /**
+   * Width of the chart in CSS pixels, when known: the axis names then break into lines that
+   * fit the plot (a parameter's description and a level's name and unit pass 320 px).
+   */
+  readonly width?: number;
 }
+
+/** The plot's margins, in pixels, before any room for wrapped axis names. */
+const BIFURCATION_GRID = { left: 72, right: 32, top: 56, bottom: 56 };
 
 const REGIMES: readonly Regime[] = ['equilibrium', 'cycle', 'chaotic', 'collapse'];
 
@@ -176,12 +185,17 @@ export function bifurcationChartOptions(
         lineStyle: { color: text, type: [6, 3], width: 2 },
         label: {
           color: text,
+          // Along the line inside the plot: above its end, the label met the level's name.
+          position: 'insideEndTop',
           formatter: `${strings.currentValue}: ${fmt.format(settings.current)}`,
         },
         data: [{ xAxis: settings.current }],
       },
     });
   }
+  const plot = settings.width ? settings.width - BIFURCATION_GRID.left - BIFURCATION_GRID.right : 0;
+  const parameterName = wrapAxisName(settings.axes.parameter, plot);
+  const observedName = wrapAxisName(settings.axes.observed, plot);
   return {
     animation: false,
     aria: {
@@ -191,15 +205,20 @@ export function bifurcationChartOptions(
       },
       decal: { show: true },
     },
-    grid: { left: 72, right: 32, top: 56, bottom: 56 },
-    legend: { top: 0, textStyle: { color: text } },
+    grid: {
+      ...BIFURCATION_GRID,
+      top: BIFURCATION_GRID.top + extraNameHeight(observedName),
+      bottom: BIFURCATION_GRID.bottom + extraNameHeight(parameterName),
+    },
+    // One row whatever the width (paged when narrow), so it never meets the level's name.
+    legend: { top: 0, type: 'scroll', textStyle: { color: text } },
     tooltip: { trigger: 'item', valueFormatter: (v: number) => fmt.format(v) },
     xAxis: {
       type: 'value',
-      name: settings.axes.parameter,
+      name: parameterName,
       nameLocation: 'middle',
       nameGap: 30,
-      nameTextStyle: { color: text },
+      nameTextStyle: { color: text, ...NAME_LINE_STYLE },
       axisLabel: { color: text, formatter: (v: number) => fmt.format(v) },
       ...axisStyle(text),
       min: Math.min(...values),
@@ -207,8 +226,9 @@ export function bifurcationChartOptions(
     },
     yAxis: {
       type: 'value',
-      name: settings.axes.observed,
-      nameTextStyle: { color: text },
+      name: observedName,
+      // From the axis rightwards, extra lines going up: centred, a long name ran off the left.
+      nameTextStyle: { color: text, align: 'left', verticalAlign: 'bottom', ...NAME_LINE_STYLE },
       axisLabel: { color: text, formatter: (v: number) => fmt.format(v) },
       ...axisStyle(text),
       // Zero kept in range when values declining to it are marked there.

@@ -1,4 +1,13 @@
-import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  type ElementRef,
+  inject,
+  input,
+  signal,
+  viewChild,
+} from '@angular/core';
 import { getParameter } from '@tropline/core/contract';
 import type { EChartsType } from 'echarts/core';
 import { NgxEchartsDirective } from 'ngx-echarts';
@@ -9,6 +18,7 @@ import { TROPLINE_OPTIONS } from '../api/tropline-options';
 import { TROPLINE_STRINGS } from '../api/tropline-strings';
 import { ChartFigure } from '../chart-figure/chart-figure';
 import { injectChartPalette } from '../chart-figure/chart-palette';
+import { injectElementSize } from '../chart-figure/element-size';
 import { jobState } from '../job-strip/job-state';
 import { JobStrip } from '../job-strip/job-strip';
 import { parameterGroups } from '../parameter-form/parameter-form-schema';
@@ -86,12 +96,15 @@ export class BifurcationChart {
     return this.current() ?? (req ? getParameter(req.model, req.parameter) : undefined);
   });
   protected readonly background = computed(() => this.palette().surface);
+  private readonly canvas = viewChild<ElementRef<HTMLElement>>('canvas');
+  private readonly canvasSize = injectElementSize(() => this.canvas()?.nativeElement);
 
   protected readonly chartOptions = computed(() => {
     const result = this.shown();
     if (!result) return {};
     const p = this.palette();
     return bifurcationChartOptions(result, {
+      width: this.canvasSize().width,
       axes: this.axisLabels(),
       current: this.currentValue(),
       colors: {

@@ -30,7 +30,8 @@ let nextId = 0;
  * width is redrawn at the new width. The stage carries `data-animation="on|off"`, read back from
  * the drawn chart's own option, so a host (or a test) can see that reduced motion is honoured,
  * and `data-text-outside`: how many of the drawn texts (axis names, labels, legend) reach past the
- * canvas after each drawing — 0 when none runs off its edge.
+ * canvas after each drawing — 0 when none runs off its edge — with their words in
+ * `data-text-outside-words` (so a failing check can say which).
  */
 @Component({
   selector: 'tropline-chart-figure',
@@ -68,7 +69,7 @@ export class ChartFigure {
   /** Whether the drawn chart animates, as its instance reports it after drawing. */
   protected readonly drawnAnimation = signal<'on' | 'off' | undefined>(undefined);
   /** How many drawn texts reach past the canvas, after the last drawing. */
-  protected readonly textOutside = signal<number | undefined>(undefined);
+  protected readonly textOutside = signal<readonly string[] | undefined>(undefined);
 
   constructor() {
     // ngx-echarts ignores its observer's first report, which for a chart created hidden is the
@@ -172,6 +173,8 @@ interface SceneElement {
   readonly invisible?: boolean;
   readonly ignore?: boolean;
   readonly transform?: ArrayLike<number> | null;
+  /** A text's own words (tspan and text elements). */
+  readonly style?: { readonly text?: string };
   /** The clip paths zrender collected for it while drawing, their transforms in canvas pixels. */
   readonly __clipPaths?: readonly SceneElement[];
   getBoundingRect(): { x: number; y: number; width: number; height: number };
@@ -193,21 +196,22 @@ function canvasBox(el: SceneElement): Box {
 }
 
 /**
- * Counts the visible texts of a drawn chart whose box, in canvas pixels, reaches more than a pixel
- * past the canvas, so a reader sees part of a word. A text wholly outside its clip is not drawn
- * (a scrolling legend's other pages) and does not count; one its clip cuts (the scrolling
- * legend's last partial item, which its page arrows lead on to) is ECharts' own and not counted.
+ * The words of a drawn chart's texts whose drawn part — the box in canvas pixels, cut by the
+ * text's clips — reaches more than a pixel past the canvas, so a reader sees part of a word or
+ * none of it. A text its clip hides wholly (a scrolling legend's other pages) is not drawn and
+ * does not count, nor does the part a clip cuts off (the scrolling legend's last partial item,
+ * which its page arrows lead on to).
  */
-function textsOutside(chart: EChartsType): number {
+function textsOutside(chart: EChartsType): string[] {
   const scene = chart.getZr().storage.getDisplayList(true) as unknown as readonly SceneElement[];
-  let outside = 0;
+  const outside: string[] = [];
   for (const el of scene) {
     if ((el.type !== 'tspan' && el.type !== 'text') || el.invisible || el.ignore) continue;
     const r = el.getBoundingRect();
     if (!r.width || !r.height) continue;
-    const box = canvasBox(el);
     const canvas: Box = { x0: 0, y0: 0, x1: chart.getWidth(), y1: chart.getHeight() };
-    let seen = canvas;
+    // What of the text is drawn: its box cut by its clips (the part a clip hides is not seen).
+    let seen = canvasBox(el);
     for (const clip of el.__clipPaths ?? []) {
       const c = canvasBox(clip);
       seen = {
@@ -217,15 +221,15 @@ function textsOutside(chart: EChartsType): number {
         y1: Math.min(seen.y1, c.y1),
       };
     }
-    const hidden = box.x1 <= seen.x0 || box.x0 >= seen.x1 || box.y1 <= seen.y0 || box.y0 >= seen.y1;
+    const hidden = seen.x1 <= seen.x0 || seen.y1 <= seen.y0;
     if (hidden) continue;
     if (
-      box.x0 < canvas.x0 - 1 ||
-      box.y0 < canvas.y0 - 1 ||
-      box.x1 > canvas.x1 + 1 ||
-      box.y1 > canvas.y1 + 1
+      seen.x0 < canvas.x0 - 1 ||
+      seen.y0 < canvas.y0 - 1 ||
+      seen.x1 > canvas.x1 + 1 ||
+      seen.y1 > canvas.y1 + 1
     ) {
-      outside++;
+      outside.push(el.style?.text ?? '');
     }
   }
   return outside;

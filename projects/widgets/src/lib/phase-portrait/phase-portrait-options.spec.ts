@@ -93,26 +93,25 @@ describe('phasePortraitOptions at a known width', () => {
   }
   type Plane = { xAxis: AxisLike; yAxis: AxisLike; grid: { top: number; bottom: number } };
 
-  it('wraps both axis names to the plot width, the vertical one starting at its axis', () => {
-    // 320 px less the grid's 72 px left and 24 px right margins.
+  it('keeps names that fit the plot on one line, the vertical one starting at its axis', () => {
+    // 320 px less the grid's 72 px left and 24 px right margins: "Prey (dimensionless)" fits.
     const option = phasePortraitOptions(data, { ...settings, width: 320 }) as Plane;
-    expect(option.xAxis.nameTextStyle).toMatchObject({ width: 224, overflow: 'break' });
-    expect(option.yAxis.nameTextStyle).toMatchObject({
-      width: 224,
-      overflow: 'break',
-      align: 'left',
-    });
-    // "Prey (dimensionless)" fits on one line there: the margins stay as they are.
+    expect(option.xAxis.name).not.toContain('\n');
+    expect(option.yAxis.nameTextStyle).toMatchObject({ align: 'left' });
     expect(option.grid).toMatchObject({ top: 56, bottom: 56 });
   });
 
-  it('makes room for the extra lines of a name wider than the plot', () => {
+  it('breaks a name wider than the plot at its spaces and makes room for the extra lines', () => {
     const narrow = phasePortraitOptions(data, { ...settings, width: 200 }) as Plane;
-    expect(narrow.xAxis.name.length * 6.6).toBeGreaterThan(104);
-    expect(narrow.grid.bottom).toBeGreaterThan(56);
-    expect(narrow.grid.top).toBeGreaterThan(56);
+    // 200 − 96 = 104 px of plot: every line of both names within it (6.6 px a character).
+    for (const name of [narrow.xAxis.name, narrow.yAxis.name]) {
+      expect(name).toContain('\n');
+      for (const line of name.split('\n')) expect(line.length * 6.6).toBeLessThanOrEqual(104);
+    }
+    expect(narrow.grid.bottom).toBe(56 + 16 * (narrow.xAxis.name.split('\n').length - 1));
+    expect(narrow.grid.top).toBe(56 + 16 * (narrow.yAxis.name.split('\n').length - 1));
     const unknown = phasePortraitOptions(data, settings) as Plane;
-    expect(unknown.xAxis.nameTextStyle.overflow).toBeUndefined();
+    expect(unknown.xAxis.name).not.toContain('\n');
     expect(unknown.grid).toMatchObject({ top: 56, bottom: 56 });
   });
 });

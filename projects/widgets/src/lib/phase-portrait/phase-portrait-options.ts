@@ -6,6 +6,7 @@ import type {
 } from '@tropline/core/contract';
 import type { EChartsCoreOption } from 'echarts/core';
 import { DEFAULT_TROPLINE_STRINGS, type TroplineStrings } from '../api/tropline-strings';
+import { extraNameHeight, NAME_LINE_STYLE, wrapAxisName } from '../chart-figure/axis-name';
 import { axisStyle } from '../chart-figure/axis-style';
 import type { ChartTable } from '../chart-figure/chart-export';
 import type {
@@ -76,12 +77,6 @@ export interface PhasePortraitSettings {
 
 /** The plane's margins around the plot, in pixels, before any room for wrapped axis names. */
 const PLANE_GRID = { left: 72, right: 24, top: 56, bottom: 56 };
-
-/** A 12 px name's width, roughly (common practice: about 0.55 em a character). */
-const nameWidth = (name: string) => name.length * 6.6;
-
-/** One line of a 12 px axis name. */
-const NAME_LINE = 16;
 
 /** The series of one level, by id; a RangeError when the trajectory lacks it. */
 export function levelSeries(data: TrajectoryData, id: string) {
@@ -179,13 +174,9 @@ export function phasePortraitOptions(
   const ys = levelSeries(data, settings.y);
   const text = settings.textColor;
   const cut = transientCut(data.times, settings.transientEnd);
-  const xName = `${xs.name} (${formatUnit(xs.unit)})`;
-  const yName = `${ys.name} (${formatUnit(ys.unit)})`;
   const plot = settings.width ? settings.width - PLANE_GRID.left - PLANE_GRID.right : 0;
-  const wrapped = plot > 0 ? { width: plot, overflow: 'break' } : {};
-  // Room for each name's extra lines, so a wrapped name meets neither the legend nor the edge.
-  const extra = (name: string) =>
-    plot > 0 ? (Math.ceil(nameWidth(name) / plot) - 1) * NAME_LINE : 0;
+  const xName = wrapAxisName(`${xs.name} (${formatUnit(xs.unit)})`, plot);
+  const yName = wrapAxisName(`${ys.name} (${formatUnit(ys.unit)})`, plot);
   const pairs = data.times.map((_, k) => [xs.values[k]!, ys.values[k]!]);
   const line = settings.colors[0] ?? '#1565c0';
   const nullColor = settings.colors[1] ?? '#b0561d';
@@ -206,8 +197,9 @@ export function phasePortraitOptions(
     },
     grid: {
       ...PLANE_GRID,
-      top: PLANE_GRID.top + extra(yName),
-      bottom: PLANE_GRID.bottom + extra(xName),
+      // Room for each name's extra lines, so a wrapped name meets neither the legend nor the edge.
+      top: PLANE_GRID.top + extraNameHeight(yName),
+      bottom: PLANE_GRID.bottom + extraNameHeight(xName),
     },
     legend: { top: 0, type: 'scroll', textStyle: { color: text } },
     tooltip: { trigger: 'item', valueFormatter: (v: number) => fmt.format(v) },
@@ -216,7 +208,7 @@ export function phasePortraitOptions(
       name: xName,
       nameLocation: 'middle',
       nameGap: 30,
-      nameTextStyle: { color: text, ...wrapped },
+      nameTextStyle: { color: text, ...NAME_LINE_STYLE },
       axisLabel: { color: text, formatter: (v: number) => fmt.format(v) },
       ...axisStyle(text),
       min: 0,
@@ -225,7 +217,8 @@ export function phasePortraitOptions(
       type: 'value',
       name: yName,
       // From the axis rightwards: centred on it, a long name ran off the canvas's left edge.
-      nameTextStyle: { color: text, align: 'left', ...wrapped },
+      // Extra lines of a wrapped name go up, into the room the grid's top keeps for them.
+      nameTextStyle: { color: text, align: 'left', verticalAlign: 'bottom', ...NAME_LINE_STYLE },
       axisLabel: { color: text, formatter: (v: number) => fmt.format(v) },
       ...axisStyle(text),
       min: 0,
