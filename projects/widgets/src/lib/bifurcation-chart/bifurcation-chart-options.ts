@@ -1,7 +1,7 @@
 import type { EChartsCoreOption } from 'echarts/core';
 import type { Regime, SweepResult } from '../api/analysis-types';
 import { DEFAULT_TROPLINE_STRINGS, type TroplineStrings } from '../api/tropline-strings';
-import { extraNameHeight, NAME_LINE_STYLE, wrapAxisName } from '../chart-figure/axis-name';
+import { fitAxisNames, NAME_LINE_STYLE, VERTICAL_NAME_STYLE } from '../chart-figure/axis-name';
 import { axisStyle } from '../chart-figure/axis-style';
 import type { ChartTable } from '../chart-figure/chart-export';
 
@@ -193,9 +193,10 @@ export function bifurcationChartOptions(
       },
     });
   }
-  const plot = settings.width ? settings.width - BIFURCATION_GRID.left - BIFURCATION_GRID.right : 0;
-  const parameterName = wrapAxisName(settings.axes.parameter, plot);
-  const observedName = wrapAxisName(settings.axes.observed, plot);
+  const named = fitAxisNames(BIFURCATION_GRID, settings.width, {
+    x: settings.axes.parameter,
+    y: settings.axes.observed,
+  });
   return {
     animation: false,
     aria: {
@@ -205,17 +206,13 @@ export function bifurcationChartOptions(
       },
       decal: { show: true },
     },
-    grid: {
-      ...BIFURCATION_GRID,
-      top: BIFURCATION_GRID.top + extraNameHeight(observedName),
-      bottom: BIFURCATION_GRID.bottom + extraNameHeight(parameterName),
-    },
+    grid: named.grid,
     // One row whatever the width (paged when narrow), so it never meets the level's name.
     legend: { top: 0, type: 'scroll', textStyle: { color: text } },
     tooltip: { trigger: 'item', valueFormatter: (v: number) => fmt.format(v) },
     xAxis: {
       type: 'value',
-      name: parameterName,
+      name: named.x,
       nameLocation: 'middle',
       nameGap: 30,
       nameTextStyle: { color: text, ...NAME_LINE_STYLE },
@@ -226,9 +223,8 @@ export function bifurcationChartOptions(
     },
     yAxis: {
       type: 'value',
-      name: observedName,
-      // From the axis rightwards, extra lines going up: centred, a long name ran off the left.
-      nameTextStyle: { color: text, align: 'left', verticalAlign: 'bottom', ...NAME_LINE_STYLE },
+      name: named.y,
+      nameTextStyle: { color: text, ...VERTICAL_NAME_STYLE },
       axisLabel: { color: text, formatter: (v: number) => fmt.format(v) },
       ...axisStyle(text),
       // Zero kept in range when values declining to it are marked there.

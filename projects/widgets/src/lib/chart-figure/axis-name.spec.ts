@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { extraNameHeight, nameWidth, wrapAxisName } from './axis-name';
+import { extraNameHeight, fitAxisNames, nameWidth, wrapAxisName } from './axis-name';
 
 describe('wrapAxisName', () => {
   const name = 'Water flea (Daphnia pulex) (g C m⁻²)';
@@ -27,5 +27,29 @@ describe('wrapAxisName', () => {
     expect(wrapAxisName('Scenedesmus-and-other-green-algae (g)', 60)).toBe(
       'Scenedesmus-and-other-green-algae\n(g)',
     );
+  });
+});
+
+describe('fitAxisNames', () => {
+  const grid = { left: 72, right: 24, top: 56, bottom: 56 };
+  const names = {
+    x: 'Green algae (Scenedesmus spp.) (g C m⁻²)',
+    y: 'Water flea (Daphnia pulex) (g C m⁻²)',
+  };
+
+  it('breaks both names to the plot inside the grid and makes room for their extra lines', () => {
+    const fitted = fitAxisNames(grid, 288, names);
+    expect(fitted.x).toBe(wrapAxisName(names.x, 288 - 96));
+    expect(fitted.y).toBe(wrapAxisName(names.y, 288 - 96));
+    expect(fitted.grid).toEqual({
+      ...grid,
+      top: 56 + extraNameHeight(fitted.y),
+      bottom: 56 + extraNameHeight(fitted.x),
+    });
+    expect(fitted.grid.top).toBeGreaterThan(56);
+  });
+
+  it('leaves names and grid alone when the width is not known', () => {
+    expect(fitAxisNames(grid, undefined, names)).toEqual({ ...names, grid });
   });
 });

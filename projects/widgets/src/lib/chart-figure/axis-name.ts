@@ -40,6 +40,44 @@ export const extraNameHeight = (wrapped: string): number =>
 /** Style of a wrapped axis name's lines (ECharts' default line height is the font's, too tight). */
 export const NAME_LINE_STYLE = { lineHeight: NAME_LINE } as const;
 
+/**
+ * Name style of a vertical axis named at its end: from the axis rightwards (centred, a long
+ * name ran off the canvas's left edge), extra lines going up into the room the grid keeps.
+ */
+export const VERTICAL_NAME_STYLE = {
+  align: 'left',
+  verticalAlign: 'bottom',
+  ...NAME_LINE_STYLE,
+} as const;
+
+/** A plot's margins in pixels. */
+export interface PlotGrid {
+  readonly left: number;
+  readonly right: number;
+  readonly top: number;
+  readonly bottom: number;
+}
+
+/**
+ * Both axis names broken to fit the plot a chart `width` pixels wide leaves inside `grid`
+ * (unbroken when the width is not known), and the grid with room for their extra lines: the
+ * horizontal name's below the plot, the vertical name's above it.
+ */
+export function fitAxisNames(
+  grid: PlotGrid,
+  width: number | undefined,
+  names: { readonly x: string; readonly y: string },
+): { readonly x: string; readonly y: string; readonly grid: PlotGrid } {
+  const plot = width ? width - grid.left - grid.right : 0;
+  const x = wrapAxisName(names.x, plot);
+  const y = wrapAxisName(names.y, plot);
+  return {
+    x,
+    y,
+    grid: { ...grid, top: grid.top + extraNameHeight(y), bottom: grid.bottom + extraNameHeight(x) },
+  };
+}
+
 /** The name's words, a parenthesised group (with its spaces) counting as one. */
 function words(name: string): string[] {
   const out: string[] = [];

@@ -68,7 +68,7 @@ export class ChartFigure {
   private readonly stageSize = injectElementSize(() => this.stage()?.nativeElement);
   /** Whether the drawn chart animates, as its instance reports it after drawing. */
   protected readonly drawnAnimation = signal<'on' | 'off' | undefined>(undefined);
-  /** How many drawn texts reach past the canvas, after the last drawing. */
+  /** The words of the drawn texts that reach past the canvas, after the last drawing. */
   protected readonly textOutside = signal<readonly string[] | undefined>(undefined);
 
   constructor() {
@@ -205,11 +205,11 @@ function canvasBox(el: SceneElement): Box {
 function textsOutside(chart: EChartsType): string[] {
   const scene = chart.getZr().storage.getDisplayList(true) as unknown as readonly SceneElement[];
   const outside: string[] = [];
+  const canvas: Box = { x0: 0, y0: 0, x1: chart.getWidth(), y1: chart.getHeight() };
   for (const el of scene) {
     if ((el.type !== 'tspan' && el.type !== 'text') || el.invisible || el.ignore) continue;
     const r = el.getBoundingRect();
     if (!r.width || !r.height) continue;
-    const canvas: Box = { x0: 0, y0: 0, x1: chart.getWidth(), y1: chart.getHeight() };
     // What of the text is drawn: its box cut by its clips (the part a clip hides is not seen).
     let seen = canvasBox(el);
     for (const clip of el.__clipPaths ?? []) {

@@ -6,7 +6,7 @@ import type {
 } from '@tropline/core/contract';
 import type { EChartsCoreOption } from 'echarts/core';
 import { DEFAULT_TROPLINE_STRINGS, type TroplineStrings } from '../api/tropline-strings';
-import { extraNameHeight, NAME_LINE_STYLE, wrapAxisName } from '../chart-figure/axis-name';
+import { fitAxisNames, NAME_LINE_STYLE, VERTICAL_NAME_STYLE } from '../chart-figure/axis-name';
 import { axisStyle } from '../chart-figure/axis-style';
 import type { ChartTable } from '../chart-figure/chart-export';
 import type {
@@ -174,9 +174,11 @@ export function phasePortraitOptions(
   const ys = levelSeries(data, settings.y);
   const text = settings.textColor;
   const cut = transientCut(data.times, settings.transientEnd);
-  const plot = settings.width ? settings.width - PLANE_GRID.left - PLANE_GRID.right : 0;
-  const xName = wrapAxisName(`${xs.name} (${formatUnit(xs.unit)})`, plot);
-  const yName = wrapAxisName(`${ys.name} (${formatUnit(ys.unit)})`, plot);
+  // Room for each name's extra lines, so a wrapped name meets neither the legend nor the edge.
+  const named = fitAxisNames(PLANE_GRID, settings.width, {
+    x: `${xs.name} (${formatUnit(xs.unit)})`,
+    y: `${ys.name} (${formatUnit(ys.unit)})`,
+  });
   const pairs = data.times.map((_, k) => [xs.values[k]!, ys.values[k]!]);
   const line = settings.colors[0] ?? '#1565c0';
   const nullColor = settings.colors[1] ?? '#b0561d';
@@ -195,17 +197,12 @@ export function phasePortraitOptions(
       label: { description: describePhasePortrait(data, settings) },
       decal: { show: true },
     },
-    grid: {
-      ...PLANE_GRID,
-      // Room for each name's extra lines, so a wrapped name meets neither the legend nor the edge.
-      top: PLANE_GRID.top + extraNameHeight(yName),
-      bottom: PLANE_GRID.bottom + extraNameHeight(xName),
-    },
+    grid: named.grid,
     legend: { top: 0, type: 'scroll', textStyle: { color: text } },
     tooltip: { trigger: 'item', valueFormatter: (v: number) => fmt.format(v) },
     xAxis: {
       type: 'value',
-      name: xName,
+      name: named.x,
       nameLocation: 'middle',
       nameGap: 30,
       nameTextStyle: { color: text, ...NAME_LINE_STYLE },
@@ -215,10 +212,9 @@ export function phasePortraitOptions(
     },
     yAxis: {
       type: 'value',
-      name: yName,
+      name: named.y,
       // From the axis rightwards: centred on it, a long name ran off the canvas's left edge.
-      // Extra lines of a wrapped name go up, into the room the grid's top keeps for them.
-      nameTextStyle: { color: text, align: 'left', verticalAlign: 'bottom', ...NAME_LINE_STYLE },
+      nameTextStyle: { color: text, ...VERTICAL_NAME_STYLE },
       axisLabel: { color: text, formatter: (v: number) => fmt.format(v) },
       ...axisStyle(text),
       min: 0,

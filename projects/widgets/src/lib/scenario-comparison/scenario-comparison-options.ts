@@ -2,6 +2,7 @@ import type { ChainModel } from '@tropline/core/contract';
 import type { EChartsCoreOption } from 'echarts/core';
 import type { ComparisonResult } from '../api/analysis-types';
 import { DEFAULT_TROPLINE_STRINGS, type TroplineStrings } from '../api/tropline-strings';
+import { fitAxisNames, NAME_LINE_STYLE, VERTICAL_NAME_STYLE } from '../chart-figure/axis-name';
 import { axisStyle } from '../chart-figure/axis-style';
 import type { ChartTable } from '../chart-figure/chart-export';
 import { formatUnit, LINE_DASHES } from '../trajectory-chart/trajectory-chart-format';
@@ -27,6 +28,8 @@ export interface ComparisonChartSettings {
   readonly columns?: number;
   /** The chart's height in pixels, when known: the multiples are then laid out in pixels. */
   readonly height?: number;
+  /** The chart's width in pixels, when known: the overlay's axis names then break to fit. */
+  readonly width?: number;
 }
 
 /** Rows of small multiples for `n` scenarios in `columns` columns. */
@@ -94,23 +97,28 @@ export function comparisonChartOptions(
   const dash = (i: number) => LINE_DASHES[i % LINE_DASHES.length];
   if (settings.layout === 'overlay') {
     const level = model.levels.find((l) => l.id === settings.level)!;
+    // The right margin holds the scenarios' end labels.
+    const named = fitAxisNames({ left: 72, right: 120, top: 56, bottom: 56 }, settings.width, {
+      x: strings.timeAxis(model.timeUnit),
+      y: `${level.name} (${formatUnit(level.unit)})`,
+    });
     return {
       ...base,
-      grid: { left: 72, right: 120, top: 56, bottom: 56 },
+      grid: named.grid,
       legend: { top: 0, type: 'scroll', textStyle: { color: text } },
       xAxis: {
         type: 'value',
-        name: strings.timeAxis(model.timeUnit),
+        name: named.x,
         nameLocation: 'middle',
         nameGap: 30,
-        nameTextStyle: { color: text },
+        nameTextStyle: { color: text, ...NAME_LINE_STYLE },
         axisLabel,
         ...axisStyle(text),
       },
       yAxis: {
         type: 'value',
-        name: `${level.name} (${formatUnit(level.unit)})`,
-        nameTextStyle: { color: text },
+        name: named.y,
+        nameTextStyle: { color: text, ...VERTICAL_NAME_STYLE },
         axisLabel,
         ...axisStyle(text),
       },

@@ -115,6 +115,7 @@ export class ScenarioComparison {
       locale: this.options.locale,
       strings: this.strings,
       columns: this.columns(),
+      width: this.canvasSize().width,
       ...(height > 0 ? { height: Math.max(height, this.minHeight() ?? 0) } : {}),
     });
   });
