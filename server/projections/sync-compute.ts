@@ -5,6 +5,7 @@ import { validationProblem } from '../http/problem';
 import type { QuotasService } from '../quotas/quotas-service';
 import { COSTS } from '../quotas/compute-costs';
 import { unvalidatedRequestHash } from './canonical-json';
+import { SerializedAnswer } from './serialized-answer';
 import { engineProblem } from './engine-problem';
 import type { ResultCache } from './result-cache';
 
@@ -16,7 +17,10 @@ export interface SyncEndpoint<T> {
   validate(body: unknown): ValidationResult<T>;
   /** Compute units of a valid request (before any work; throws a problem past a bound). */
   cost(request: T): number;
-  /** Runs the computation (in-thread when small, on the worker pool when not). */
+  /**
+   * Runs the computation (in-thread when small, on a worker thread when not), answering the
+   * result, or its bytes when a worker thread serialised it.
+   */
   compute(request: T): unknown;
 }
 
@@ -97,7 +101,8 @@ export function syncCompute<T>(
     try {
       const result = await endpoint.compute(checked.value);
       computeMs = performance.now() - started;
-      body = Buffer.from(JSON.stringify(result));
+      body =
+        result instanceof SerializedAnswer ? result.bytes : Buffer.from(JSON.stringify(result));
       jsonMs = performance.now() - started - computeMs;
     } catch (err) {
       failure = err;
@@ -111,7 +116,8 @@ export function syncCompute<T>(
     }
     if (hash !== undefined) cache.set(hash, body);
     // Server-side time (auth, admission, validation, compute, serialisation) for integrators
-    // and the benchmark; the network and the client are not in it.
+    // and the benchmark; the network and the client are not in it. An answer serialised on a
+    // worker thread counts its JSON in compute.
     sendJson(
       res,
       body,
