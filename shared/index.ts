@@ -225,6 +225,8 @@ export type {
 export {
   /** Period and maxima per period from the recurrence of successive maxima. */
   periodFromMaxima,
+  /** The same over the window, else its later half (a cycle reached inside the window). */
+  periodFromLateMaxima,
 } from './regime/period-from-maxima';
 export {
   /** Local maxima of one component located from DOP853's dense output. */

@@ -4,7 +4,13 @@ import { compileChain } from '../model/chain-kernel';
 import { initialVector } from '../model/initial-vector';
 import { withParameter } from '../model/parameter-pointer';
 import { assessRegime } from './assess-regime';
-import { DYING_OUT_NOTE, predictabilityHorizon } from './classify-regime';
+import {
+  driftingMaxima,
+  DYING_OUT_NOTE,
+  predictabilityHorizon,
+  TRANSIENT_NOTE,
+} from './classify-regime';
+import { UPLAND_DEMO } from '../model/presets';
 import { LevelTrend } from './level-trend';
 import { lyapunovSpectrum } from '../lyapunov/lyapunov-spectrum';
 import { findEquilibria } from '../equilibria/find-equilibria';
@@ -170,6 +176,65 @@ describe('regimes of the Hastings & Powell (1991) chain', () => {
     for (const options of [{ transient: 1000, window: 1000 }, {}]) {
       expect(assessRegime(model, BENCHMARK_INITIAL, options).regime).toBe('equilibrium');
     }
+  });
+});
+
+// The invented upland (UPLAND_DEMO) over the short window its portal widget uses (transient
+// 200, window 100 years), along the wolves' mortality. Past 0.2774 the predator-free
+// equilibrium (heather, deer, 0) attracts — the engine's closed form and Jacobian — so the
+// wolves cannot invade it; below, they can. Over 100 years the wolves fall only 1.3× (0.28) and
+// 3.7× (0.29): the tenfold rule alone did not see it, and the window read chaotic.
+describe('the upland on a short window', () => {
+  const at = (mortality: number) =>
+    withParameter(UPLAND_DEMO.model, '/levels/2/mortality', mortality);
+  const short = { transient: 200, window: 100 };
+
+  it.each([0.28, 0.29])(
+    'reports wolves at mortality %s dying out toward the equilibrium without them',
+    (m) => {
+      const boundary = findEquilibria(at(m)).find((e) => e.kind === 'partial-chain')!;
+      expect(boundary.stable).toBe(true);
+      expect(findEquilibria(at(m)).some((e) => e.kind === 'interior' && e.feasible)).toBe(false);
+      // The wolves' invasion rate there: the eigenvalue along the wolves' axis (measured:
+      // −2.6e-3 at 0.28 and −1.3e-2 at 0.29 per year, as the window's fitted decline).
+      const invasion = Math.max(...boundary.eigenvalues.map((e) => e.re));
+      expect(invasion).toBeLessThan(0);
+      const r = assessRegime(at(m), UPLAND_DEMO.initial, short);
+      expect(r.regime).toBe('collapse');
+      expect(r.collapsedLevels).toEqual(['wolves']);
+      expect(r.regimeNote).toBe(DYING_OUT_NOTE);
+    },
+  );
+
+  // Below the threshold the wolves invade (the boundary equilibrium is unstable): the deer's
+  // slow decline inside the window (−1.0e-3 ± 2e-4 per year at 0.246, an orbit spiralling onto
+  // its cycle) is no dying out, and maxima that still rise or fall one way are no chaos, even
+  // with the exponent's estimate positive within its wide error.
+  it.each([0.246, 0.26, 0.27])('reads mortality %s as a transient, not chaos or collapse', (m) => {
+    const boundary = findEquilibria(at(m)).find((e) => e.kind === 'partial-chain')!;
+    expect(boundary.stable).toBe(false);
+    const r = assessRegime(at(m), UPLAND_DEMO.initial, short);
+    expect(r.lyapunovExponent.value).toBeGreaterThan(0);
+    expect(r.lyapunovExponent.value).toBeLessThan(3 * r.lyapunovExponent.standardError);
+    expect(r.regime).toBe('cycle');
+    expect(r.regimeNote).toBe(TRANSIENT_NOTE);
+    // A long window shows the cycle itself (period from recurring maxima).
+    const long = assessRegime(at(m), UPLAND_DEMO.initial, { transient: 5000, window: 5000 });
+    expect(long.regime).toBe('cycle');
+  });
+});
+
+describe('driftingMaxima', () => {
+  it('tells maxima drifting one way (at some lag up to 4) from irregular ones', () => {
+    expect(driftingMaxima([])).toBe(true); // too few to show chaos
+    expect(driftingMaxima([1, 2])).toBe(true);
+    expect(driftingMaxima([0.18, 0.21, 0.25, 0.28, 0.31, 0.34])).toBe(true); // rising onto a cycle
+    // Two interleaved sequences converging onto a period-2 cycle.
+    expect(driftingMaxima([11.0, 12.0, 11.3, 11.8, 11.4, 11.7, 11.45, 11.65])).toBe(true);
+    // The benchmark's chaotic maxima at b1 = 3 (our sweep, transient 200, window 300).
+    expect(driftingMaxima([8.693, 10.45, 8.039, 8.542, 10.32, 8.332, 8.936])).toBe(false);
+    // Steps within the tolerance count either way.
+    expect(driftingMaxima([5, 5.0001, 5, 5.0001, 5.2], 1e-4)).toBe(true);
   });
 });
 

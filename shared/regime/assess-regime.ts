@@ -10,7 +10,7 @@ import {
   type Regime,
 } from './classify-regime';
 import { LevelTrend } from './level-trend';
-import { endsOnAttractingEquilibrium } from './attracting-equilibrium';
+import { attractingBoundaryWithout, endsOnAttractingEquilibrium } from './attracting-equilibrium';
 
 /** Default quasi-extinction threshold as a fraction of each level's natural scale. */
 export const DEFAULT_EXTINCTION_FRACTION = 1e-6;
@@ -118,6 +118,8 @@ export function assessKernel(
     {
       trends: trend.trends(),
       damped: () => endsOnAttractingEquilibrium(kernel, run.state, run.windowMin, run.windowMax),
+      attractsWithout: (lowest) =>
+        attractingBoundaryWithout(kernel, run.state, run.windowMax, lowest) !== undefined,
     },
   );
   const lambda = run.exponents[0]!;

@@ -37,3 +37,30 @@ export function endsOnAttractingEquilibrium(
   kernel.jacobian(0, y, jac);
   return eigenvalues(jac, n).every((e) => e.re < 0);
 }
+
+/**
+ * The attracting equilibrium the chain has without level `lowest` and every level above it,
+ * if there is one: damped Newton from `end` with those levels set to 0 (their equations then
+ * hold whatever the rest, and Newton's step leaves them at 0, so it solves the shorter chain),
+ * feasible (every level ≥ 0), with every eigenvalue of the full Jacobian there of negative real
+ * part — the transverse ones are the removed levels' invasion rates, so none of them can grow
+ * back from small numbers (common practice in invasion analysis). Undefined when Newton fails,
+ * the root is infeasible, or it does not attract.
+ */
+export function attractingBoundaryWithout(
+  kernel: ChainKernel,
+  end: ArrayLike<number>,
+  max: ArrayLike<number>,
+  lowest: number,
+): Float64Array | undefined {
+  const n = kernel.dimension;
+  const y = Float64Array.from(end, (v, i) => (i >= lowest ? 0 : v));
+  const scales = Float64Array.from(max, (v) => Math.max(Math.abs(v), Number.MIN_VALUE));
+  if (!newtonRoot(kernel, y, scales)) return undefined;
+  for (let i = 0; i < n; i++) {
+    if (i >= lowest ? y[i] !== 0 : !(y[i]! >= -1e-12 * scales[i]!)) return undefined;
+  }
+  const jac = new Float64Array(n * n);
+  kernel.jacobian(0, y, jac);
+  return eigenvalues(jac, n).every((e) => e.re < 0) ? y : undefined;
+}

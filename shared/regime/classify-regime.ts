@@ -1,6 +1,6 @@
 import type { LyapunovResult } from '../lyapunov/lyapunov-spectrum';
 import type { LevelTrends } from './level-trend';
-import { periodFromMaxima } from './period-from-maxima';
+import { periodFromLateMaxima } from './period-from-maxima';
 
 /** The long-run behaviour of a chain after its transient. */
 export type Regime = 'equilibrium' | 'cycle' | 'chaotic' | 'collapse';
@@ -52,13 +52,16 @@ export const DYING_FALL = 10;
 /**
  * Rule 1: the levels that collapse — below their quasi-extinction threshold somewhere in the
  * window (`windowMin`), or dying out: their fitted exponential rate r (see `LevelTrend`) below
- * −max(zScore·SE, zeroBand) and r·window below −ln {@link DYING_FALL}. `dyingOnly` says whether
- * every collapsed level is above its threshold still, i.e. only its decline decides.
+ * −max(zScore·SE, zeroBand), and either r·window below −ln {@link DYING_FALL} or (given
+ * `attractsWithout`) the chain has an attracting equilibrium without the level and those above
+ * it, which the level cannot invade. `dyingOnly` says whether every collapsed level is above its
+ * threshold still, i.e. only its decline decides.
  */
 export function collapsedLevels(
   windowMin: ArrayLike<number>,
   rules: RegimeRules,
   trends?: LevelTrends,
+  attractsWithout?: (lowest: number) => boolean,
 ): { levels: number[]; dyingOnly: boolean } {
   const n = windowMin.length;
   if (rules.extinction.length !== n) {
@@ -75,7 +78,7 @@ export function collapsedLevels(
     } else if (
       trends &&
       trends.rates[i]! < -Math.max(z * trends.standardErrors[i]!, band) &&
-      trends.rates[i]! * trends.window < -Math.log(DYING_FALL)
+      (trends.rates[i]! * trends.window < -Math.log(DYING_FALL) || attractsWithout?.(i))
     ) {
       levels.push(i);
     }
@@ -92,6 +95,50 @@ export interface WindowEvidence {
    * `endsOnAttractingEquilibrium`); asked only when the earlier tests leave it open.
    */
   readonly damped?: () => boolean;
+  /**
+   * Whether the chain without level `lowest` and those above it has an attracting equilibrium
+   * (rule 1's slow dying out; see `attractingBoundaryWithout`); asked only of a level whose
+   * decline is beyond its error but slower than tenfold over the window.
+   */
+  readonly attractsWithout?: (lowest: number) => boolean;
+}
+
+/**
+ * Note given when maxima that do not recur drift one way, or are too few to tell: the window
+ * holds a transient, not chaos.
+ */
+export const TRANSIENT_NOTE =
+  'the maxima still drift one way or are too few to show chaos (the orbit is still on its way ' +
+  'to its long-run state); a longer window settles it';
+
+/**
+ * Whether maxima that do not recur are a transient rather than irregular: fewer than 3, or for
+ * some lag p ≤ 4 with at least 3 maxima in each of the p interleaved sequences (every p-th
+ * maximum), every one of those sequences is monotone (steps within `tolerance` × the largest
+ * maximum count either way). An orbit spiralling onto a p-cycle, or onto an equilibrium, gives
+ * such sequences; a chaotic orbit's maxima rise and fall at every lag.
+ */
+export function driftingMaxima(values: readonly number[], tolerance = 1e-4): boolean {
+  const m = values.length;
+  if (m < 3) return true;
+  let top = 0;
+  for (const v of values) top = Math.max(top, Math.abs(v));
+  const tol = tolerance * top;
+  for (let p = 1; p <= 4 && 3 * p <= m; p++) {
+    let monotone = true;
+    for (let r = 0; r < p && monotone; r++) {
+      let up = true;
+      let down = true;
+      for (let k = r + p; k < m; k += p) {
+        const d = values[k]! - values[k - p]!;
+        if (d < -tol) up = false;
+        if (d > tol) down = false;
+      }
+      monotone = up || down;
+    }
+    if (monotone) return true;
+  }
+  return false;
 }
 
 /** Note given when irregular maxima decide a regime the exponent's error leaves open. */
@@ -101,18 +148,22 @@ export const IRREGULAR_NOTE =
 /**
  * Classifies a run by these rules, in order:
  * 1. `collapse` if any level's minimum over the window is below its quasi-extinction threshold,
- *    or (given `evidence.trends`) a level is dying out: declining exponentially beyond its error and the
- *    zero band ({@link collapsedLevels}) — on its way below any threshold, so neither its
- *    shrinking maxima nor the exponent of the levels left describe the long run;
+ *    or (given `evidence.trends`) a level is dying out: declining exponentially beyond its error
+ *    and the zero band, tenfold over the window or toward an attracting equilibrium without it
+ *    ({@link collapsedLevels}) — on its way below any threshold, so neither its shrinking maxima
+ *    nor the exponent of the levels left describe the long run;
  * 2. `equilibrium` if every level has settled (relative spread below `settledSpread`), the
  *    largest exponent is negative beyond max(zScore·SE, zeroBand), or (given `damped`) the window
  *    ends on a damped approach to an attracting equilibrium — a short window's exponent error
  *    can hide λ < 0 while the damped maxima still pass as a cycle's;
  * 3. `chaotic` if the largest exponent is positive beyond max(zScore·SE, zeroBand);
  * 4. otherwise the exponent is zero within its error: `cycle` when the observed level's
- *    successive maxima recur (the period from that recurrence); when they do not recur and the
- *    exponent's estimate is positive, `chaotic` with a note that the window was short; else
- *    `cycle` without a period (a very long period, or a torus, which the four regimes fold in).
+ *    successive maxima recur, over the window or its later half (the period from that
+ *    recurrence; `periodFromLateMaxima`); when they do not recur but
+ *    drift one way or are too few ({@link driftingMaxima}), `cycle` without a period and with
+ *    {@link TRANSIENT_NOTE}; when they are irregular and the exponent's estimate is positive,
+ *    `chaotic` with a note that the window was short; else `cycle` without a period (a very
+ *    long period, or a torus, which the four regimes fold in).
  */
 export function classifyRegime(
   run: LyapunovResult,
@@ -120,7 +171,12 @@ export function classifyRegime(
   evidence: WindowEvidence = {},
 ): RegimeVerdict {
   const n = run.windowMin.length;
-  const collapsed = collapsedLevels(run.windowMin, rules, evidence.trends);
+  const collapsed = collapsedLevels(
+    run.windowMin,
+    rules,
+    evidence.trends,
+    evidence.attractsWithout,
+  );
   if (collapsed.levels.length > 0) {
     return {
       regime: 'collapse',
@@ -140,9 +196,12 @@ export function classifyRegime(
   const margin = Math.max(z * run.standardErrors[0]!, band);
   if (settled || lambda < -margin || evidence.damped?.()) return { regime: 'equilibrium' };
   if (lambda > margin) return { regime: 'chaotic' };
-  const p = periodFromMaxima(run.maximaTimes, run.maximaValues, rules.periodTolerance ?? 1e-4);
+  const p = periodFromLateMaxima(run.maximaTimes, run.maximaValues, rules.periodTolerance ?? 1e-4);
   if (p !== undefined)
     return { regime: 'cycle', period: p.period, maximaPerPeriod: p.maximaPerPeriod };
+  if (driftingMaxima(run.maximaValues, rules.periodTolerance ?? 1e-4)) {
+    return { regime: 'cycle', note: TRANSIENT_NOTE };
+  }
   return lambda > 0 ? { regime: 'chaotic', note: IRREGULAR_NOTE } : { regime: 'cycle' };
 }
 

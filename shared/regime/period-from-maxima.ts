@@ -34,3 +34,21 @@ export function periodFromMaxima(
   }
   return undefined;
 }
+
+/**
+ * {@link periodFromMaxima} over every maximum of the window, else over its later half: an
+ * orbit that reaches its cycle inside the window (after a long, possibly chaotic, transient —
+ * the Hastings & Powell chain at b1 = 2.6 wanders for thousands of time units before settling
+ * on a period-2 cycle) recurs from there on.
+ */
+export function periodFromLateMaxima(
+  times: readonly number[],
+  values: readonly number[],
+  tolerance: number,
+): MaximaPeriod | undefined {
+  const half = Math.floor(values.length / 2);
+  return (
+    periodFromMaxima(times, values, tolerance) ??
+    periodFromMaxima(times.slice(half), values.slice(half), tolerance)
+  );
+}

@@ -2,10 +2,13 @@ import type { ChainKernel } from '../model/chain-kernel';
 import { Dop853 } from '../integrate/dop853';
 import { LocalMaxima } from '../regime/local-maxima';
 import { LevelTrend } from '../regime/level-trend';
-import { periodFromMaxima } from '../regime/period-from-maxima';
+import { periodFromLateMaxima } from '../regime/period-from-maxima';
 import { AnalysisRunError, assessKernel } from '../regime/assess-regime';
-import { collapsedLevels, type Regime } from '../regime/classify-regime';
-import { endsOnAttractingEquilibrium } from '../regime/attracting-equilibrium';
+import { collapsedLevels, driftingMaxima, type Regime } from '../regime/classify-regime';
+import {
+  attractingBoundaryWithout,
+  endsOnAttractingEquilibrium,
+} from '../regime/attracting-equilibrium';
 
 /** How a sweep point's regime is decided. */
 export type SweepRegimeMethod = 'maxima' | 'lyapunov';
@@ -46,8 +49,9 @@ export interface SweepPointRun {
  * level's local maxima from the dense output. With the `maxima` method the regime follows from
  * the window alone (collapse below a threshold or dying out, as rule 1 of `classifyRegime`;
  * equilibrium when every level has settled or the window ends on a damped approach to an
- * attracting equilibrium (`endsOnAttractingEquilibrium`); cycle when the maxima recur;
- * otherwise chaotic, i.e. irregular maxima); with `lyapunov` it is the
+ * attracting equilibrium (`endsOnAttractingEquilibrium`); cycle when the maxima recur (over the window or
+ * its later half) or drift one way (`driftingMaxima`: an orbit still approaching its cycle); otherwise chaotic, i.e.
+ * irregular maxima); with `lyapunov` it is the
  * Benettin classification of {@link assessKernel} (about 3× the work).
  */
 export function sweepPoint(
@@ -117,8 +121,15 @@ export function sweepPoint(
     point: {
       value,
       maxima: settledMaxima(min, max, s.observe) ?? values,
-      regime: maximaRegime(min, max, extinction, trend, maxima, values, () =>
-        endsOnAttractingEquilibrium(kernel, y, min, max),
+      regime: maximaRegime(
+        min,
+        max,
+        extinction,
+        trend,
+        maxima,
+        values,
+        () => endsOnAttractingEquilibrium(kernel, y, min, max),
+        (lowest) => attractingBoundaryWithout(kernel, y, max, lowest) !== undefined,
       ),
     },
     state: y,
@@ -149,10 +160,14 @@ function maximaRegime(
   maxima: LocalMaxima,
   values: readonly number[],
   damped: () => boolean,
+  attractsWithout: (lowest: number) => boolean,
 ): Regime {
-  if (collapsedLevels(min, { extinction }, trend.trends()).levels.length > 0) return 'collapse';
+  const collapsed = collapsedLevels(min, { extinction }, trend.trends(), attractsWithout);
+  if (collapsed.levels.length > 0) return 'collapse';
   let all = true;
   for (let i = 0; i < min.length; i++) if (!settled(min[i]!, max[i]!)) all = false;
   if (all || values.length < 3 || damped()) return 'equilibrium';
-  return periodFromMaxima(maxima.maximaTimes(), values, 1e-4) ? 'cycle' : 'chaotic';
+  if (periodFromLateMaxima(maxima.maximaTimes(), values, 1e-4)) return 'cycle';
+  // Maxima drifting one way are an orbit still approaching its cycle, not chaos.
+  return driftingMaxima(values) ? 'cycle' : 'chaotic';
 }

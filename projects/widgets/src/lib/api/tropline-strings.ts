@@ -81,6 +81,8 @@ export interface TroplineStrings {
     readonly dyingOut: (levels: string, count: number) => string;
     /** Irregular peaks with a positive exponent still within its error. */
     readonly shortWindow: string;
+    /** Peaks that still rise or fall one way (or too few): the window caught a transient. */
+    readonly transient: string;
   };
   /** Heading of the equilibria list. */
   readonly equilibriaHeading: string;
@@ -225,6 +227,10 @@ export const DEFAULT_TROPLINE_STRINGS: TroplineStrings = {
     shortWindow:
       'The peaks are irregular and the exponent is positive, but not yet beyond its error; ' +
       'a longer measuring window would settle it.',
+    transient:
+      'The peaks are still rising or falling from one to the next, or too few to judge: the ' +
+      'system is still on its way to its long-run behaviour. A longer measuring window would ' +
+      'settle the cycle’s period, or show it settling.',
   },
   equilibriaHeading: 'Equilibria',
   cautionsLabel: 'How to read this projection',

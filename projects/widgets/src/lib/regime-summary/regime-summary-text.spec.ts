@@ -118,6 +118,20 @@ describe('regimeSummaryText', () => {
       label: 'Note',
       value: DEFAULT_TROPLINE_STRINGS.regimeNote.shortWindow,
     });
+    // TRANSIENT_NOTE of shared/regime/classify-regime.ts, as the API writes it.
+    const transient =
+      'the maxima still drift one way or are too few to show chaos (the orbit is still on its ' +
+      'way to its long-run state); a longer window settles it';
+    const drifting = regimeSummaryText(
+      UPLAND_DEMO.model,
+      { ...chaotic, regime: 'cycle', regimeNote: transient },
+      [],
+      'en',
+    );
+    expect(drifting.facts.at(-1)).toEqual({
+      label: 'Note',
+      value: DEFAULT_TROPLINE_STRINGS.regimeNote.transient,
+    });
     const other = regimeSummaryText(
       UPLAND_DEMO.model,
       { ...chaotic, regimeNote: 'a new note' },

@@ -27,9 +27,10 @@ export interface SummaryEquilibrium {
  * The engine's regime notes (`shared/regime/classify-regime.ts`) by how they begin, so they can be
  * said in the host's words; a note not listed is shown as the API wrote it.
  */
-const NOTE_KINDS: readonly (readonly [string, 'dyingOut' | 'shortWindow'])[] = [
+const NOTE_KINDS: readonly (readonly [string, 'dyingOut' | 'shortWindow' | 'transient'])[] = [
   ['a level still above its quasi-extinction threshold', 'dyingOut'],
   ['irregular maxima', 'shortWindow'],
+  ['the maxima still drift one way', 'transient'],
 ];
 
 /** The regime summary, ready to show. */
@@ -130,5 +131,6 @@ function noteInWords(
   const kind = NOTE_KINDS.find(([start]) => note.startsWith(start))?.[1];
   if (kind === 'dyingOut' && count > 0) return strings.regimeNote.dyingOut(collapsedNames, count);
   if (kind === 'shortWindow') return strings.regimeNote.shortWindow;
+  if (kind === 'transient') return strings.regimeNote.transient;
   return note;
 }
