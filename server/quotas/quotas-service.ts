@@ -266,22 +266,27 @@ export class QuotasService {
       }
     }
     if (errors.length) throw validationProblem(errors);
-    const current = (await this.repository.getPlan(tenantId)) ?? DEFAULT_PLAN;
-    const plan: QuotaPlan = {
-      monthlyUnits: change.monthlyUnits ?? current.monthlyUnits,
-      perMinute: change.perMinute ?? current.perMinute,
-      browserPerMinute: change.browserPerMinute ?? current.browserPerMinute,
-    };
-    const at = new Date(this.now()).toISOString();
-    await this.repository.setPlan(tenantId, plan, at);
-    await new AuditRepository(this.repository.db).record({
-      tenantId,
-      actor,
-      action: 'quota.set',
-      detail: { ...plan },
-      at,
+    // Read, write and audit in one transaction: two changes at once cannot interleave (each
+    // keeps the other's fields), and a plan never changes without its audit event.
+    return this.repository.db.transaction(async (trx) => {
+      const repository = new QuotasRepository(trx);
+      const current = (await repository.getPlan(tenantId)) ?? DEFAULT_PLAN;
+      const plan: QuotaPlan = {
+        monthlyUnits: change.monthlyUnits ?? current.monthlyUnits,
+        perMinute: change.perMinute ?? current.perMinute,
+        browserPerMinute: change.browserPerMinute ?? current.browserPerMinute,
+      };
+      const at = new Date(this.now()).toISOString();
+      await repository.setPlan(tenantId, plan, at);
+      await new AuditRepository(trx).record({
+        tenantId,
+        actor,
+        action: 'quota.set',
+        detail: { ...plan },
+        at,
+      });
+      return plan;
     });
-    return plan;
   }
 
   /** `GET /usage`: the tenant's current month. */
