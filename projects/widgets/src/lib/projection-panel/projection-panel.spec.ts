@@ -81,4 +81,21 @@ describe('ProjectionPanel', () => {
     expect(alert?.textContent).toContain('The request is not valid');
     expect(alert?.textContent).toContain('/horizon');
   });
+
+  it('shows a field error of the API under the field its pointer names', async () => {
+    const message = 'mortality must be at most 10 per day';
+    const { fixture } = setup({
+      failWith: {
+        status: 400,
+        title: 'The request is not valid',
+        message: `/model/levels/1/mortality: ${message}`,
+        fieldErrors: [{ pointer: '/model/levels/1/mortality', message }],
+        retryable: false,
+      },
+    });
+    await settle(fixture);
+    const root = fixture.nativeElement as HTMLElement;
+    const error = root.querySelector('[id$="-levels-1-mortality-error"]');
+    expect(error?.textContent).toMatch(/at most 10 per day/); // in the form's own words
+  });
 });

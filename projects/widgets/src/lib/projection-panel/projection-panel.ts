@@ -157,6 +157,16 @@ export class ProjectionPanel {
     };
   });
 
+  /**
+   * The server's field errors of a refused projection, for the form to show under the fields
+   * their pointers name (`/model/levels/1/mortality`); the errors on other parts of the request
+   * (`/horizon`) stay in the alert only.
+   */
+  protected readonly formFieldErrors = computed(() => {
+    const p = this.projection();
+    return p.kind === 'failed' ? p.error.fieldErrors : [];
+  });
+
   protected readonly regimeValue = computed(() => {
     const r = this.regime();
     return r.kind === 'ready' ? r.value : undefined;
