@@ -87,13 +87,33 @@ describe('console: members, invitations and roles', () => {
       .toContain(NEWCOMER.name);
     expect(await page.getByText('No invitation is waiting for an answer.').count()).toBe(1);
 
+    // A role change asks first; Cancel keeps the role shown and held.
+    const role = page.getByRole('combobox', { name: `Role of ${NEWCOMER.name}` });
+    await role.click();
+    await page.getByRole('option', { name: 'Viewer' }).click();
+    const ask = page.getByRole('dialog', { name: `Make ${NEWCOMER.name} viewer?` });
+    await ask.waitFor();
+    expect(await ask.textContent()).toContain('goes from analyst to viewer');
+    await checkpoint(page, 'members-06-role-confirm');
+    await ask.getByRole('button', { name: 'Cancel' }).click();
+    await ask.waitFor({ state: 'detached' });
+    await expect.poll(() => role.textContent()).toContain('Analyst');
+    await role.click();
+    await page.getByRole('option', { name: 'Viewer' }).click();
+    await ask.getByRole('button', { name: 'Make viewer' }).click();
+    await expect
+      .poll(() => page.locator('tc-members-page [role="status"]').first().textContent())
+      .toContain(`${NEWCOMER.name} is now viewer.`);
+    await expect.poll(() => role.textContent()).toContain('Viewer');
+
     // The audit trail records the invitation and the join.
     await openFromNav(page, 'Audit trail');
     await page.getByRole('table', { name: /Audit events/ }).waitFor();
     const trail = await page.getByRole('table', { name: /Audit events/ }).textContent();
     expect(trail).toContain('Invited someone');
     expect(trail).toContain('Joined');
-    await checkpoint(page, 'members-06-audit');
+    expect(trail).toContain('Changed a role');
+    await checkpoint(page, 'members-07-audit');
     expect([...admin.outside, ...newcomer.outside]).toEqual([]);
   });
 

@@ -12,7 +12,7 @@ import { MatButton } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatProgressBar } from '@angular/material/progress-bar';
-import { MatSelectModule } from '@angular/material/select';
+import { MatSelect, MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 import type { TenantRole } from '@tropline/core';
 import { firstValueFrom } from 'rxjs';
@@ -76,8 +76,23 @@ export class MembersPage {
     });
   }
 
-  protected async changeRole(member: Member, role: TenantRole): Promise<void> {
+  protected async changeRole(member: Member, role: TenantRole, select: MatSelect): Promise<void> {
     if (role === member.role) return;
+    const ref = this.dialog.open<ConfirmDialog, ConfirmData, boolean>(ConfirmDialog, {
+      data: {
+        title: `Make ${member.name} ${ROLE_LABELS[role].name.toLowerCase()}?`,
+        message:
+          `${member.name} (${member.email}) goes from ${ROLE_LABELS[member.role].name.toLowerCase()} ` +
+          `to ${ROLE_LABELS[role].name.toLowerCase()} in ${this.session.tenant()?.name} at once. ` +
+          `${role === 'viewer' ? 'A' : 'An'} ${ROLE_LABELS[role].name.toLowerCase()}’s ` +
+          `access: ${ROLE_LABELS[role].summary}.`,
+        confirm: `Make ${ROLE_LABELS[role].name.toLowerCase()}`,
+      },
+    });
+    if (!(await firstValueFrom(ref.afterClosed()))) {
+      select.value = member.role; // the list shows the role still held
+      return;
+    }
     await this.act('change the role', async () => {
       await this.api.changeRole(member.userId, role);
       this.announcement.set(`${member.name} is now ${ROLE_LABELS[role].name.toLowerCase()}.`);
