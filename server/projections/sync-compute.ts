@@ -108,7 +108,6 @@ export function syncCompute<T>(
       failure = err;
     }
     waited = performance.now();
-    quotas.settleArrived(); // the commit ran beside the computation: its answer is here
     const ticket = await pending.decided(res); // a refusal throws here; the result is dropped
     admitMs += performance.now() - waited;
     if (body === undefined) {

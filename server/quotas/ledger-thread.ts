@@ -1,5 +1,5 @@
 import Database from 'better-sqlite3';
-import { parentPort, workerData, type MessagePort } from 'node:worker_threads';
+import { parentPort, workerData } from 'node:worker_threads';
 import { configureConnection } from '../db/sqlite-connection';
 import { LedgerStatements, type LedgerOp, type LedgerQueries } from './ledger-statements';
 
@@ -7,11 +7,6 @@ import { LedgerStatements, type LedgerOp, type LedgerQueries } from './ledger-st
 export interface LedgerThreadData {
   readonly file: string;
   readonly queries: LedgerQueries;
-  /**
-   * Where replies go: a port of its own, which the request thread can drain synchronously
-   * (`receiveMessageOnPort`) the moment it needs an answer, without a turn of its event loop.
-   */
-  readonly replies: MessagePort;
 }
 
 /** One op sent to the thread. */
@@ -34,7 +29,6 @@ const MAX_BATCH = 256;
  * is posted only after its transaction is durable. The request thread never waits for fsync.
  */
 function main(port: NonNullable<typeof parentPort>, data: LedgerThreadData): void {
-  const replies = data.replies;
   const conn = new Database(data.file);
   configureConnection(conn, data.file);
   let statements: LedgerStatements | undefined;
@@ -49,10 +43,10 @@ function main(port: NonNullable<typeof parentPort>, data: LedgerThreadData): voi
     try {
       // Prepared on first use: by then the request thread has run the migrations.
       statements ??= new LedgerStatements(conn, data.queries);
-      replies.postMessage({ ids, results: statements.run(batch.map((m) => m.op)) });
+      port.postMessage({ ids, results: statements.run(batch.map((m) => m.op)) });
     } catch (err) {
       const e = err as { message?: string; code?: string };
-      replies.postMessage({ ids, error: { message: String(e.message ?? err), code: e.code } });
+      port.postMessage({ ids, error: { message: String(e.message ?? err), code: e.code } });
     }
   };
   const schedule = () => {
@@ -63,7 +57,6 @@ function main(port: NonNullable<typeof parentPort>, data: LedgerThreadData): voi
   port.on('message', (m: LedgerMessage | 'close') => {
     if (m === 'close') {
       conn.close();
-      replies.close();
       port.close();
       return;
     }

@@ -118,18 +118,4 @@ describe.each([
     const repo = new QuotasRepository(dbs[dbs.length - 1]!);
     expect(await repo.used({ tenantId: DEMO_TENANT.id, period: '2027-02' })).toBe(1);
   });
-
-  it('settles an answer that arrived while the thread was busy, without a loop turn', async () => {
-    const writer = writers[0]!;
-    await writer.write({ kind: 'admit', request: request(1, { period: '2027-03' }) }); // warm
-    let outcome: AdmissionOutcome | undefined;
-    void writer
-      .write({ kind: 'admit', request: request(1, { period: '2027-03' }) })
-      .then((o) => (outcome = o as AdmissionOutcome));
-    // Busy for 300 ms without yielding, as a computation is (the commit is done by then).
-    Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 0, 300);
-    writer.poll();
-    for (let i = 0; i < 5; i++) await Promise.resolve(); // microtasks only
-    expect(outcome).toEqual({ requests: expect.any(Number), used: 2 });
-  });
 });

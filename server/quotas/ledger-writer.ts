@@ -1,11 +1,6 @@
 import type BetterSqlite3 from 'better-sqlite3';
 import type { Knex } from 'knex';
-import {
-  MessageChannel,
-  receiveMessageOnPort,
-  Worker,
-  type MessagePort,
-} from 'node:worker_threads';
+import { Worker } from 'node:worker_threads';
 import { sqliteHandle } from '../db/compiled-query';
 import { databaseFile } from '../db/database';
 import {
@@ -20,11 +15,6 @@ import type { LedgerMessage, LedgerReply, LedgerThreadData } from './ledger-thre
 /** Writes quota ops; each promise settles once its op is durable (or failed, writing nothing). */
 export interface LedgerWriter {
   write(op: LedgerOp): Promise<LedgerResult>;
-  /**
-   * Settles, now, the ops whose answers have arrived but wait for the event loop: a request
-   * thread that computed while its admission committed calls this before awaiting it.
-   */
-  poll(): void;
   /** Waits for what was sent, then releases the thread or connection. */
   close(): Promise<void>;
 }
@@ -64,7 +54,6 @@ class LedgerError extends Error {
  */
 class LedgerThread implements LedgerWriter {
   private worker: Worker | undefined;
-  private replies: MessagePort | undefined;
   private readonly waiting = new Map<number, Waiting>();
   private nextId = 1;
   private drained: (() => void) | undefined;
@@ -84,14 +73,6 @@ class LedgerThread implements LedgerWriter {
     });
   }
 
-  poll(): void {
-    const port = this.replies;
-    if (!port) return;
-    for (let m = receiveMessageOnPort(port); m; m = receiveMessageOnPort(port)) {
-      this.reply(m.message as LedgerReply);
-    }
-  }
-
   async close(): Promise<void> {
     const worker = this.worker;
     if (!worker) return;
@@ -101,43 +82,26 @@ class LedgerThread implements LedgerWriter {
     const exited = new Promise((done) => worker.once('exit', done));
     worker.postMessage('close');
     await exited;
-    this.replies?.close();
-    this.replies = undefined;
-  }
-
-  private reply(reply: LedgerReply): void {
-    reply.ids.forEach((id, i) => {
-      const w = this.waiting.get(id);
-      this.waiting.delete(id);
-      if (!w) return;
-      if ('error' in reply) w.reject(new LedgerError(reply.error.message, reply.error.code));
-      else w.resolve(reply.results[i] as LedgerResult);
-    });
-    this.settled();
   }
 
   private start(): Worker {
-    const { port1, port2 } = new MessageChannel();
     const worker = new Worker(WORKER, {
-      workerData: {
-        file: this.file,
-        queries: this.queries,
-        replies: port2,
-      } satisfies LedgerThreadData,
-      transferList: [port2],
+      workerData: { file: this.file, queries: this.queries } satisfies LedgerThreadData,
     });
     worker.unref();
-    // The worker's ref keeps the process alive while ops are pending; the port never does.
-    port1.on('message', (reply: LedgerReply) => this.reply(reply));
-    port1.unref();
-    this.replies = port1;
+    worker.on('message', (reply: LedgerReply) => {
+      reply.ids.forEach((id, i) => {
+        const w = this.waiting.get(id);
+        this.waiting.delete(id);
+        if (!w) return;
+        if ('error' in reply) w.reject(new LedgerError(reply.error.message, reply.error.code));
+        else w.resolve(reply.results[i] as LedgerResult);
+      });
+      this.settled();
+    });
     const fail = (err: unknown) => {
       // Nothing unanswered was acknowledged; its callers get the error, the next op a new thread.
-      if (this.worker === worker) {
-        this.worker = undefined;
-        this.replies = undefined;
-        port1.close();
-      }
+      if (this.worker === worker) this.worker = undefined;
       for (const w of this.waiting.values()) w.reject(err);
       this.waiting.clear();
       this.settled();
@@ -181,10 +145,6 @@ class InThreadLedger implements LedgerWriter {
       () => undefined,
     );
     return result;
-  }
-
-  poll(): void {
-    // Nothing waits for another thread here.
   }
 
   async close(): Promise<void> {

@@ -237,14 +237,6 @@ export class QuotasService {
     };
   }
 
-  /**
-   * Settles the admissions whose answers have arrived from the ledger's thread while this one
-   * was busy (see `LedgerWriter.poll`): awaiting one then takes microtasks, not a loop turn.
-   */
-  settleArrived(): void {
-    this.ledger.poll();
-  }
-
   /** Returns an admitted request's units (the computation failed through no fault of quota). */
   async refund(ticket: Admission): Promise<void> {
     const request = { ...ticket, at: new Date(this.now()).toISOString() };
