@@ -231,9 +231,11 @@ async function main(): Promise<void> {
       `ratio to in-process compute ${fmt(cached.requests.average / (1000 / base.computeMs))}×`,
   );
   const all = [serial, parallel, cached];
+  const failures = (r: autocannon.Result) => `${r.errors} (timeouts ${r.timeouts})`;
   console.log(
-    `answers other than 200: ${otherStatuses(all)}; ` +
-      `errors: ${all.reduce((s, r) => s + r.errors, 0)} (timeouts ${all.reduce((s, r) => s + r.timeouts, 0)})`,
+    `answers other than 200: ${otherStatuses(all)}; errors: 1 connection ${failures(serial)}, ` +
+      `50 uncached ${failures(parallel)}, 50 cached ${failures(cached)}; slowest answers: ` +
+      `${serial.latency.max} / ${parallel.latency.max} / ${cached.latency.max} ms`,
   );
 }
 
