@@ -120,10 +120,8 @@ export function createApp(config: Config, options: AppOptions = {}): TroplineApp
   const api = express.Router();
   api.use(express.json({ limit: '256kb', strict: true }));
   api.use(healthRoutes(db));
-  // The keyed routes first: a bearer-keyed request never passes the console's session stack
-  // (cookies, session lookup, CSRF) nor its fifty-odd route layers. Their paths are disjoint.
-  api.use(keyed.router);
   api.use(accounts.router);
+  api.use(keyed.router);
   api.use(scenarios.router);
   // Behind the accounts' session stack, which every `/console` path passes first.
   api.use('/console/compute', stampStart, keyed.computeRoutes(memberComputeGuard(db)));
