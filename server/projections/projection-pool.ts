@@ -16,24 +16,20 @@ export class ProjectionPool {
 
   constructor(private readonly threads: number) {}
 
-  private piscina(): Piscina {
-    return (this.pool ??= new Piscina({
+  /**
+   * Projects on a worker and answers with the JSON bytes; rejects with the engine's
+   * IntegrationError when it stops.
+   */
+  async run(request: ProjectionRequest, wallTimeMs: number): Promise<SerializedAnswer> {
+    this.pool ??= new Piscina({
       filename: WORKER,
       minThreads: 0,
       maxThreads: this.threads,
       idleTimeout: 30_000,
       // Beyond this the pool is saturated: refuse rather than queue without bound.
       maxQueue: 64,
-    }));
-  }
-
-  /**
-   * Projects on a worker and answers with the JSON bytes; rejects with the engine's
-   * IntegrationError when it stops.
-   */
-  async run(request: ProjectionRequest, wallTimeMs: number): Promise<SerializedAnswer> {
-    const pool = this.piscina();
-    const out = (await pool.run({ request, wallTimeMs } satisfies ProjectionTask)) as
+    });
+    const out = (await this.pool.run({ request, wallTimeMs } satisfies ProjectionTask)) as
       Uint8Array | ProjectionFailure;
     if (out instanceof Uint8Array) {
       return new SerializedAnswer(Buffer.from(out.buffer, out.byteOffset, out.byteLength));

@@ -33,9 +33,7 @@ export function endsOnAttractingEquilibrium(
     if (!(y[i]! >= -1e-12 * scales[i]!)) return false;
     if (!(Math.abs(end[i]! - y[i]!) <= CONTRACTION * (max[i]! - min[i]!))) return false;
   }
-  const jac = new Float64Array(n * n);
-  kernel.jacobian(0, y, jac);
-  return eigenvalues(jac, n).every((e) => e.re < 0);
+  return attracts(kernel, y);
 }
 
 /**
@@ -60,7 +58,13 @@ export function attractingBoundaryWithout(
   for (let i = 0; i < n; i++) {
     if (i >= lowest ? y[i] !== 0 : !(y[i]! >= -1e-12 * scales[i]!)) return undefined;
   }
+  return attracts(kernel, y) ? y : undefined;
+}
+
+/** Whether every eigenvalue of the Jacobian at equilibrium `y` has negative real part. */
+function attracts(kernel: ChainKernel, y: Float64Array): boolean {
+  const n = kernel.dimension;
   const jac = new Float64Array(n * n);
   kernel.jacobian(0, y, jac);
-  return eigenvalues(jac, n).every((e) => e.re < 0) ? y : undefined;
+  return eigenvalues(jac, n).every((e) => e.re < 0);
 }

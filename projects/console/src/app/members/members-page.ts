@@ -78,15 +78,17 @@ export class MembersPage {
 
   protected async changeRole(member: Member, role: TenantRole, select: MatSelect): Promise<void> {
     if (role === member.role) return;
+    const from = ROLE_LABELS[member.role].name.toLowerCase();
+    const to = ROLE_LABELS[role].name.toLowerCase();
+    const article = /^[aeiou]/.test(to) ? 'An' : 'A';
     const ref = this.dialog.open<ConfirmDialog, ConfirmData, boolean>(ConfirmDialog, {
       data: {
-        title: `Make ${member.name} ${ROLE_LABELS[role].name.toLowerCase()}?`,
+        title: `Make ${member.name} ${to}?`,
         message:
-          `${member.name} (${member.email}) goes from ${ROLE_LABELS[member.role].name.toLowerCase()} ` +
-          `to ${ROLE_LABELS[role].name.toLowerCase()} in ${this.session.tenant()?.name} at once. ` +
-          `${role === 'viewer' ? 'A' : 'An'} ${ROLE_LABELS[role].name.toLowerCase()}’s ` +
-          `access: ${ROLE_LABELS[role].summary}.`,
-        confirm: `Make ${ROLE_LABELS[role].name.toLowerCase()}`,
+          `${member.name} (${member.email}) goes from ${from} to ${to} in ` +
+          `${this.session.tenant()?.name} at once. ${article} ${to}’s access: ` +
+          `${ROLE_LABELS[role].summary}.`,
+        confirm: `Make ${to}`,
       },
     });
     if (!(await firstValueFrom(ref.afterClosed()))) {
