@@ -213,8 +213,9 @@ async function main(): Promise<void> {
   console.log(
     `server-side, uncached: compute ${both((t) => t.compute!)}; the stack beyond compute adds ` +
       `${both(beyondCompute)} per request: JSON ${both((t) => t.json!)}, waiting for ` +
-      `admission ${both((t) => t.admit!)}, the rest (logging, headers, body, key, validation, ` +
-      `hash) ${both((t) => beyondCompute(t) - t.json! - t.admit!)}`,
+      `admission ${both((t) => t.admit!)}, waiting for a compute turn ${both((t) => t.queue!)}, ` +
+      `the rest (logging, headers, body, key, validation, hash) ` +
+      `${both((t) => beyondCompute(t) - t.json! - t.admit! - t.queue!)}`,
   );
   console.log(
     `server CPU per request (all threads, from /proc; steadier than wall time on busy cores): ` +

@@ -12,6 +12,7 @@ import type { QuotasService } from '../quotas/quotas-service';
 import { COSTS, projectionCost } from '../quotas/compute-costs';
 import type { ProjectionPool } from './projection-pool';
 import type { ResultCache } from './result-cache';
+import { onComputeTurn } from './compute-turns';
 import { syncCompute, type SyncEndpoint } from './sync-compute';
 
 /** Per-request wall-time bounds of synchronous computations. */
@@ -26,8 +27,8 @@ export interface ComputeLimits {
 export const COMPUTE_LIMITS: ComputeLimits = { inlineWallTimeMs: 1000, workerWallTimeMs: 10_000 };
 
 /**
- * Projections over at most this many model time units run on the request thread (the
- * benchmark's 1000 take about a millisecond); longer ones go to a worker thread.
+ * Projections over at most this many model time units run on the request thread, one per turn
+ * of the event loop (the benchmark's 1000 take 5–10 ms); longer ones go to a worker thread.
  */
 export const INLINE_MAX_HORIZON = 2000;
 
@@ -42,7 +43,7 @@ export function projectionsEndpoint(
     cost: projectionCost,
     compute: (request) =>
       request.horizon <= INLINE_MAX_HORIZON
-        ? projectValidated(request, { wallTimeMs: limits.inlineWallTimeMs })
+        ? onComputeTurn(() => projectValidated(request, { wallTimeMs: limits.inlineWallTimeMs }))
         : pool.run(request, limits.workerWallTimeMs),
   };
 }
@@ -52,7 +53,7 @@ export const equilibriaEndpoint: SyncEndpoint<EquilibriaRequest> = {
   name: 'equilibria',
   validate: validateEquilibriaRequest,
   cost: () => COSTS.equilibria,
-  compute: (request) => ({ equilibria: findEquilibria(request.model) }),
+  compute: (request) => onComputeTurn(() => ({ equilibria: findEquilibria(request.model) })),
 };
 
 /**

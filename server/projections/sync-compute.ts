@@ -6,6 +6,7 @@ import type { QuotasService } from '../quotas/quotas-service';
 import { COSTS } from '../quotas/compute-costs';
 import { unvalidatedRequestHash } from './canonical-json';
 import { SerializedAnswer } from './serialized-answer';
+import { TurnOutcome } from './compute-turns';
 import { engineProblem } from './engine-problem';
 import type { ResultCache } from './result-cache';
 
@@ -18,8 +19,9 @@ export interface SyncEndpoint<T> {
   /** Compute units of a valid request (before any work; throws a problem past a bound). */
   cost(request: T): number;
   /**
-   * Runs the computation (in-thread when small, on a worker thread when not), answering the
-   * result, or its bytes when a worker thread serialised it.
+   * Runs the computation (in-thread when small, one per turn of the event loop through
+   * `onComputeTurn`; on a worker thread when not), answering the result, its turn's outcome, or
+   * its bytes when a worker thread serialised it.
    */
   compute(request: T): unknown;
 }
@@ -95,15 +97,21 @@ export function syncCompute<T>(
     let admitMs = performance.now() - waited;
     const started = performance.now();
     let computeMs = 0;
+    let queueMs = 0;
     let jsonMs = 0;
     let body: Buffer | undefined;
     let failure: unknown;
     try {
-      const result = await endpoint.compute(checked.value);
+      let result = await endpoint.compute(checked.value);
       computeMs = performance.now() - started;
+      if (result instanceof TurnOutcome) {
+        ({ waitedMs: queueMs, computeMs } = result);
+        result = result.value;
+      }
+      const serialising = performance.now();
       body =
         result instanceof SerializedAnswer ? result.bytes : Buffer.from(JSON.stringify(result));
-      jsonMs = performance.now() - started - computeMs;
+      jsonMs = performance.now() - serialising;
     } catch (err) {
       failure = err;
     }
@@ -122,7 +130,8 @@ export function syncCompute<T>(
       res,
       body,
       'miss',
-      `compute;dur=${ms(computeMs)}, json;dur=${ms(jsonMs)}, admit;dur=${ms(admitMs)}, ` +
+      `queue;dur=${ms(queueMs)}, compute;dur=${ms(computeMs)}, json;dur=${ms(jsonMs)}, ` +
+        `admit;dur=${ms(admitMs)}, ` +
         `total;dur=${ms(elapsed(res))}`,
     );
   };

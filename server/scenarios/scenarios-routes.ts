@@ -1,5 +1,6 @@
 import { Router, type Request } from 'express';
 import { projectValidated } from '@tropline/core';
+import { onComputeTurn } from '../projections/compute-turns';
 import { validationProblem } from '../http/problem';
 import { engineProblem } from '../projections/engine-problem';
 import { projectionCost } from '../quotas/compute-costs';
@@ -122,7 +123,8 @@ export function scenariosRoutes(
     };
     const ticket = await quotas.admit(principal, 'projections', projectionCost(request), res);
     try {
-      res.json({ changes, ...projectValidated(request, { wallTimeMs: 2000 }) });
+      const { value } = await onComputeTurn(() => projectValidated(request, { wallTimeMs: 2000 }));
+      res.json({ changes, ...value });
     } catch (err) {
       await quotas.refund(ticket);
       throw engineProblem(err);
