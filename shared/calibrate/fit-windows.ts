@@ -1,4 +1,5 @@
 import { Dop853 } from '../integrate/dop853';
+import type { Dop853Options } from '../integrate/dop853-options';
 import type { ChainModel } from '../model/chain-model';
 import { levelScales, type ChainKernel } from '../model/chain-kernel';
 import { ModelValidationError } from '../model/validation-issue';
@@ -166,7 +167,7 @@ function logInterpolate(series: readonly FitPoint[], t: number): number {
 export class WindowPredictor {
   private readonly kernel: ChainKernel;
   private readonly solver: Dop853;
-  private readonly atol: number;
+  private readonly settings: Dop853Options;
   private readonly state: Float64Array;
   private readonly end: Float64Array;
 
@@ -176,7 +177,12 @@ export class WindowPredictor {
   ) {
     this.kernel = specialiseChain(model);
     this.solver = new Dop853(this.kernel.dimension);
-    this.atol = 1e-9 * Math.min(...levelScales(model));
+    this.settings = {
+      relativeTolerance: 1e-9,
+      absoluteTolerance: 1e-9 * Math.min(...levelScales(model)),
+      maxSteps: 200_000,
+      attempt: this.kernel.attempt,
+    };
     this.state = new Float64Array(this.kernel.dimension);
     this.end = new Float64Array(this.kernel.dimension);
   }
@@ -197,32 +203,23 @@ export class WindowPredictor {
     }
     if (win.t1 <= win.t0) return;
     const { state } = this;
-    this.solver.integrate(
-      this.kernel.rhs,
-      win.t0,
-      y0,
-      win.t1,
-      this.end,
-      { relativeTolerance: 1e-9, absoluteTolerance: this.atol, maxSteps: 200_000 },
-      (step) => {
-        while (k < order.length && points[order[k]!]!.time <= step.tNew) {
-          const p = points[order[k]!]!;
-          step.dense(p.time, state);
-          out[order[k]!] = state[p.level]!;
-          k++;
-        }
-        for (let i = 0; i < state.length; i++) if (!Number.isFinite(step.yNew[i]!)) return false;
-        return true;
-      },
-    );
+    this.solver.integrate(this.kernel.rhs, win.t0, y0, win.t1, this.end, this.settings, (step) => {
+      while (k < order.length && points[order[k]!]!.time <= step.tNew) {
+        const p = points[order[k]!]!;
+        step.dense(p.time, state);
+        out[order[k]!] = state[p.level]!;
+        k++;
+      }
+      for (let i = 0; i < state.length; i++) if (!Number.isFinite(step.yNew[i]!)) return false;
+      return true;
+    });
   }
 
   /** The state at `t1` from `y0` at `t0`, or undefined when the integration fails. */
   advance(y0: Float64Array, t0: number, t1: number): Float64Array | undefined {
     const out = new Float64Array(this.kernel.dimension);
     if (t1 <= t0) return Float64Array.from(y0);
-    const settings = { relativeTolerance: 1e-9, absoluteTolerance: this.atol, maxSteps: 200_000 };
-    const done = this.solver.integrate(this.kernel.rhs, t0, y0, t1, out, settings);
+    const done = this.solver.integrate(this.kernel.rhs, t0, y0, t1, out, this.settings);
     return done.outcome === 'completed' && out.every((v) => Number.isFinite(v) && v > 0)
       ? out
       : undefined;
@@ -253,7 +250,7 @@ export class WindowPredictor {
           y0,
           win.t1,
           new Float64Array(n),
-          { relativeTolerance: 1e-9, absoluteTolerance: this.atol, maxSteps: 200_000 },
+          this.settings,
           (step) => {
             while (k < samples && times[k]! <= step.tNew) {
               step.dense(times[k]!, this.state);

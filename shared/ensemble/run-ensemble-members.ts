@@ -144,6 +144,7 @@ export function writeEnsembleMembers(
       {
         relativeTolerance: req.tolerance,
         absoluteTolerance: req.tolerance * Math.min(...levelScales(model)),
+        attempt: kernel.attempt,
       },
       (step) => {
         while (next < S && times[next]! <= step.tNew) {

@@ -1,5 +1,13 @@
+import type { dop853Attempt } from './dop853-step';
+
 /** Right-hand side y' = f(t, y), written into `dydt`; must not keep or resize the buffers. */
 export type RhsFunction = (t: number, y: Float64Array, dydt: Float64Array) => void;
+
+/**
+ * One step attempt as `dop853Attempt` makes it: the stages into k[1..11] (k[0] = f(t, y) on
+ * entry), the new state into `yn`, the scaled error norm returned.
+ */
+export type Dop853AttemptFunction = typeof dop853Attempt;
 
 /** Step-size control and limits for {@link Dop853}. */
 export interface Dop853Options {
@@ -19,6 +27,13 @@ export interface Dop853Options {
    * do not dictate the step size.
    */
   readonly errorComponents?: number;
+  /**
+   * A step attempt specialised to this right-hand side (`fusedDop853AttemptSource`, built by
+   * `specialiseChain`), used instead of the generic one; it must compute exactly what
+   * `dop853Attempt` computes with `rhs`. The first step, the last stage and the dense output
+   * still call `rhs`.
+   */
+  readonly attempt?: Dop853AttemptFunction;
 }
 
 /** Options after validation, with defaults filled in. */
@@ -29,6 +44,7 @@ export interface Dop853Settings {
   readonly initialStep: number;
   readonly maxStep: number;
   readonly errorComponents: number;
+  readonly attempt?: Dop853AttemptFunction;
 }
 
 /** Raised before integrating when an option or argument is unusable. */
@@ -83,5 +99,9 @@ export function validateDop853Options(
   )) {
     throw new Dop853OptionError('errorComponents', `must be an integer in 1..${dimension}`);
   }
-  return { rtol, atol, maxSteps, initialStep, maxStep, errorComponents };
+  const attempt = options.attempt;
+  if (attempt !== undefined && typeof attempt !== 'function') {
+    throw new Dop853OptionError('attempt', 'must be a function');
+  }
+  return { rtol, atol, maxSteps, initialStep, maxStep, errorComponents, attempt };
 }

@@ -88,6 +88,120 @@ const BHH_0 = 0.244094488188976377952755905512;
 const BHH_8 = 0.733846688281611857341361741547;
 const BHH_11 = 0.220588235294117647058823529412e-1;
 
+/** A linear combination of stages: [stage index, weight] pairs, in the order they are summed. */
+export type StageCombination = readonly (readonly [number, number])[];
+
+/**
+ * The tableau as {@link dop853Attempt} sums it, for code generated from it (`dop853-fused.ts`):
+ * stage s (1..11) evaluates at y + h·Σ stages[s], the new state is y + h·Σ weights, and the
+ * error estimates are Σ error5 and (Σ weights) − Σ error3, each summed left to right.
+ */
+export const DOP853_TABLEAU: {
+  readonly stages: readonly StageCombination[];
+  readonly weights: StageCombination;
+  readonly error5: StageCombination;
+  readonly error3: StageCombination;
+} = {
+  stages: [
+    [],
+    [[0, A1_0]],
+    [
+      [0, A2_0],
+      [1, A2_1],
+    ],
+    [
+      [0, A3_0],
+      [2, A3_2],
+    ],
+    [
+      [0, A4_0],
+      [2, A4_2],
+      [3, A4_3],
+    ],
+    [
+      [0, A5_0],
+      [3, A5_3],
+      [4, A5_4],
+    ],
+    [
+      [0, A6_0],
+      [3, A6_3],
+      [4, A6_4],
+      [5, A6_5],
+    ],
+    [
+      [0, A7_0],
+      [3, A7_3],
+      [4, A7_4],
+      [5, A7_5],
+      [6, A7_6],
+    ],
+    [
+      [0, A8_0],
+      [3, A8_3],
+      [4, A8_4],
+      [5, A8_5],
+      [6, A8_6],
+      [7, A8_7],
+    ],
+    [
+      [0, A9_0],
+      [3, A9_3],
+      [4, A9_4],
+      [5, A9_5],
+      [6, A9_6],
+      [7, A9_7],
+      [8, A9_8],
+    ],
+    [
+      [0, A10_0],
+      [3, A10_3],
+      [4, A10_4],
+      [5, A10_5],
+      [6, A10_6],
+      [7, A10_7],
+      [8, A10_8],
+      [9, A10_9],
+    ],
+    [
+      [0, A11_0],
+      [3, A11_3],
+      [4, A11_4],
+      [5, A11_5],
+      [6, A11_6],
+      [7, A11_7],
+      [8, A11_8],
+      [9, A11_9],
+      [10, A11_10],
+    ],
+  ],
+  weights: [
+    [0, A12_0],
+    [5, A12_5],
+    [6, A12_6],
+    [7, A12_7],
+    [8, A12_8],
+    [9, A12_9],
+    [10, A12_10],
+    [11, A12_11],
+  ],
+  error5: [
+    [0, E5_0],
+    [5, E5_5],
+    [6, E5_6],
+    [7, E5_7],
+    [8, E5_8],
+    [9, E5_9],
+    [10, E5_10],
+    [11, E5_11],
+  ],
+  error3: [
+    [0, BHH_0],
+    [8, BHH_8],
+    [11, BHH_11],
+  ],
+};
+
 /**
  * One DOP853 step attempt from (t, y) of size h: the twelve stages into k[0..11] (k[0] = f(t, y)
  * on entry), the 8th-order solution into `yn`, and the scaled error norm as the return value, the

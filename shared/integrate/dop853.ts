@@ -159,6 +159,7 @@ export class Dop853 {
     const n = this.dimension;
     const k = this.k;
     const rhs = this.rhs;
+    const attempt = s.attempt ?? dop853Attempt;
     let t = t0;
     let steps = 0;
     let accepted = 0;
@@ -182,7 +183,7 @@ export class Dop853 {
         last = true;
       }
       steps++;
-      const err = dop853Attempt(rhs, n, t, h, this.y, this.yn, this.yt, k, s);
+      const err = attempt(rhs, n, t, h, this.y, this.yn, this.yt, k, s);
       this.evaluations += 11;
       // err^(1/8) by three square roots: cheaper than Math.pow in the step loop.
       const fac11 = Math.sqrt(Math.sqrt(Math.sqrt(err)));

@@ -65,7 +65,8 @@ export function lyapunovSpectrum(
   let evaluations = 0;
   let h = 0;
   if (o.transient > 0) {
-    const r = new Dop853(n).integrate(plainRhs, 0, y, o.transient, y, integration);
+    const plain = { ...integration, attempt: kernel.attempt };
+    const r = new Dop853(n).integrate(plainRhs, 0, y, o.transient, y, plain);
     steps += r.steps;
     evaluations += r.evaluations;
     h = r.nextStep;

@@ -1,3 +1,4 @@
+import type { Dop853AttemptFunction } from '../integrate/dop853-options';
 import type { ChainModel } from './chain-model';
 
 /**
@@ -13,6 +14,11 @@ export interface ChainKernel {
   rhs(t: number, y: Float64Array, dydt: Float64Array): void;
   /** Writes the analytic Jacobian ∂f_i/∂y_j at (t, y) into `jac`, row-major n×n. */
   jacobian(t: number, y: Float64Array, jac: Float64Array): void;
+  /**
+   * A DOP853 step attempt with this right-hand side fused in (pass it as the `attempt` option
+   * of `Dop853.integrate` together with `rhs`); only specialised kernels have one.
+   */
+  readonly attempt?: Dop853AttemptFunction;
 }
 
 /**

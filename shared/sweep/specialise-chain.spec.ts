@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { compileChain } from '../model/chain-kernel';
 import { parseModel } from '../model/model-validation';
 import { specialiseChain } from './specialise-chain';
+import { Dop853 } from '../integrate/dop853';
 import { benchmarkChain } from '../../tests/reference/analyses-benchmark-chain';
 import { memberGenerator } from '../ensemble/member-generator';
 import { uniformFloat64 } from 'pure-rand/distribution/uniformFloat64';
@@ -74,4 +75,39 @@ describe('specialiseChain', () => {
       }
     }
   });
+});
+
+// The fused step attempt is dop853Attempt with the right-hand side written in; every sum is taken
+// in the same order, so the whole run must agree bit for bit with the generic step, stage for
+// stage (each accepted state and a dense-output point in every step).
+describe('specialiseChain fused step', () => {
+  it.each(models.map((m, i) => [i, m] as const))(
+    'integrates exactly as the generic DOP853 step (model %i)',
+    (_i, model) => {
+      const kernel = specialiseChain(model);
+      const n = kernel.dimension;
+      expect(kernel.attempt).toBeTypeOf('function');
+      const y0 = new Float64Array(n).fill(0.5);
+      const run = (attempt: typeof kernel.attempt) => {
+        const seen: number[] = [];
+        const mid = new Float64Array(n);
+        const out = new Float64Array(n);
+        const stepper = new Dop853(n);
+        const options = { relativeTolerance: 1e-8, absoluteTolerance: 1e-12, attempt };
+        const result = stepper.integrate(kernel.rhs, 0, y0, 300, out, options, (step) => {
+          seen.push(step.tNew, ...step.yNew);
+          step.dense(0.5 * (step.tOld + step.tNew), mid);
+          seen.push(...mid);
+        });
+        return { result, seen, out: [...out] };
+      };
+      const generic = run(undefined);
+      const fused = run(kernel.attempt);
+      expect(generic.result.accepted).toBeGreaterThan(100);
+      expect(fused.result).toEqual(generic.result);
+      expect(fused.out).toEqual(generic.out);
+      expect(fused.seen.length).toBe(generic.seen.length);
+      expect(fused.seen.every((v, k) => Object.is(v, generic.seen[k]))).toBe(true);
+    },
+  );
 });

@@ -5,6 +5,7 @@ import {
   QUOTA_TAPER_FRACTION,
   type ChainKernel,
 } from '../model/chain-kernel';
+import { fusedDop853AttemptSource, type RhsBlock } from '../integrate/dop853-fused';
 
 /**
  * The chain kernel specialised to one model for the long analysis runs: the same equations as
@@ -67,6 +68,7 @@ export function specialiseChain(model: ChainModel): ChainKernel {
     m.push(param(c.mortality));
   }
   const rhsLines: string[] = [];
+  const rhsExpressions: string[] = [];
   const jacLines: string[] = [];
   for (let j = 0; j < n; j++) {
     const x = `x${j}`;
@@ -91,12 +93,18 @@ export function specialiseChain(model: ChainModel): ChainKernel {
     }
     if (j > 0) jacLines.push(`jac[${j * n + j - 1}] = ${e[j]} * dg${j} * ${x};`);
     rhsLines.push(`dydt[${j}] = ${d};`);
+    rhsExpressions.push(d);
     jacLines.push(`jac[${j * n + j}] = ${diag};`);
   }
   const load = Array.from({ length: n }, (_, i) => `const x${i} = y[${i}];`).join('\n');
   const consts = P.map((_, i) => `const P${i} = P[${i}];`).join('\n');
+  // The same feeding lines and derivatives, on a stage's state given as expressions.
+  const rhsBlock: RhsBlock = (inputs, outputs) =>
+    `{\n${inputs.map((v, i) => `const x${i} = ${v};`).join('\n')}\n${feed.join('\n')}\n` +
+    `${rhsExpressions.map((d, j) => `${outputs[j]} = ${d};`).join('\n')}\n}`;
   const source = `${consts}
 return {
+  attempt: ${fusedDop853AttemptSource(n, rhsBlock)},
   rhs(t, y, dydt) {
 ${load}
 ${feed.join('\n')}
@@ -109,14 +117,14 @@ jac.fill(0, 0, ${n * n});
 ${jacLines.join('\n')}
   },
 };`;
-  const built = new Function('P', source)(Float64Array.from(P)) as Pick<
-    ChainKernel,
-    'rhs' | 'jacobian'
+  const built = new Function('P', source)(Float64Array.from(P)) as Required<
+    Pick<ChainKernel, 'rhs' | 'jacobian' | 'attempt'>
   >;
   return {
     dimension: reference.dimension,
     ids: reference.ids,
     rhs: built.rhs,
     jacobian: built.jacobian,
+    attempt: built.attempt,
   };
 }

@@ -88,6 +88,7 @@ export function sweepPoint(
   const options = {
     relativeTolerance: s.relativeTolerance,
     absoluteTolerance: s.absoluteTolerance,
+    attempt: kernel.attempt,
   };
   let steps = 0;
   let evaluations = 0;
