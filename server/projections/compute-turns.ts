@@ -54,7 +54,7 @@ export function onComputeTurn<T>(work: () => T): Promise<TurnOutcome<T>> {
   });
 }
 
-/** Computations waiting for their turn (for the health check and tests). */
+/** Computations waiting for their turn (the spec reads it). */
 export function computeTurnsWaiting(): number {
   return waiting.length;
 }
