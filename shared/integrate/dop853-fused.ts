@@ -30,9 +30,8 @@ export function fusedDop853AttemptSource(n: number, rhsBlock: RhsBlock): string 
   const components = Array.from({ length: n }, (_, i) => i);
   const lines: string[] = [];
   lines.push(`if (n !== ${n}) throw new RangeError('this step attempt is for ${n} components');`);
-  lines.push(`const K = k;`);
   for (const i of components) lines.push(`const y_${i} = y[${i}];`);
-  for (const i of components) lines.push(`const k0_${i} = K[0][${i}];`);
+  for (const i of components) lines.push(`const k0_${i} = k[0][${i}];`);
   for (let s = 1; s < stages.length; s++) {
     const outs = components.map((i) => `k${s}_${i}`);
     lines.push(`let ${outs.join(', ')};`);
@@ -41,7 +40,7 @@ export function fusedDop853AttemptSource(n: number, rhsBlock: RhsBlock): string 
   }
   for (let s = 1; s < stages.length; s++) {
     lines.push(
-      `{ const ks = K[${s}]; ${components.map((i) => `ks[${i}] = k${s}_${i};`).join(' ')} }`,
+      `{ const ks = k[${s}]; ${components.map((i) => `ks[${i}] = k${s}_${i};`).join(' ')} }`,
     );
   }
   lines.push(`const m = s.errorComponents, atol = s.atol, rtol = s.rtol;`);
